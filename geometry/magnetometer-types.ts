@@ -1,0 +1,289 @@
+/**
+ * Public result and input types of the magnetometer half of the calibration engine.
+ *
+ * Where the functions live (all pure, all synchronous):
+ * - `calibrateMagnetometer(field, options?)`, `applyCorrection(cal, field)` — calibrate-magnetometer.ts
+ * - `relativeRotation(reference, other)` — wahba.ts
+ * - `MOUNTING_ROTATIONS`, `nearestMountingRotation(rotation)` — mounting-rotations.ts
+ * - `currentCoupling(field, input, options)` — current-coupling.ts
+ * - `simulateCapture(spec)`, `tableToCsv(table)` — simulator.ts
+ * - `describeCells(gridResolution)` — sphere-cells.ts (centre and boundary of every coverage cell)
+ *
+ * Field values keep the units they were given in (µT after E2's unit conversion); every
+ * length-like output below (offset, field strength, residual) is in those same units.
+ * Frames: body frame x forward, y right, z down.
+ */
+import type { ColumnTable, Interval95, Mat3, Vec3, Vec3Series } from "./types";
+
+/** sphere: offset + radius (4 parameters); axis: offset + 3 scales (6); full: offset + symmetric 3x3 (9). */
+export type MagModel = "sphere" | "axis" | "full";
+export type MagModelChoice = MagModel | "auto";
+
+/** Clipping and quantisation findings for one axis of one sensor. */
+export interface SaturationAxisReport {
+  axis: "x" | "y" | "z";
+  min: number;
+  max: number;
+  /** Samples whose value equals the axis minimum (maximum) exactly. */
+  countAtMin: number;
+  countAtMax: number;
+  /** Longest run of consecutive samples sitting exactly at the minimum (maximum). */
+  longestRunAtMin: number;
+  longestRunAtMax: number;
+  clippedLow: boolean;
+  clippedHigh: boolean;
+  /** Smallest step between distinct values when the values sit on a grid; null when continuous. */
+  quantisationStep: number | null;
+  /** quantisationStep as a percentage of (max − min); null when continuous. */
+  quantisationStepPercentOfRange: number | null;
+  coarseQuantisation: boolean;
+}
+
+export interface SaturationReport {
+  clipped: boolean;
+  coarseQuantisation: boolean;
+  axes: [SaturationAxisReport, SaturationAxisReport, SaturationAxisReport];
+}
+
+/**
+ * Coverage of corrected field directions over equal-area cells (HEALPix-style grid, see
+ * sphere-cells.ts). `cellCounts[i]` belongs to cell i of `describeCells(gridResolution)`.
+ */
+export interface CoverageResult {
+  cellCount: number;
+  minSamplesPerCell: number;
+  /** Fraction (0–1) of cells holding at least minSamplesPerCell samples. */
+  coveredFraction: number;
+  cellCounts: number[];
+  /** Angular radius in degrees of the largest cap of directions holding no sample. */
+  largestGapDeg: number;
+  /** Unit vector (body frame) at the centre of that cap. */
+  gapCentre: Vec3;
+  /** Plain words: which way to turn the vehicle next. */
+  nextOrientation: string;
+  /** Cells per face side of the grid (HEALPix Nside); cellCount = 12·gridResolution². */
+  gridResolution: number;
+}
+
+/** One coverage cell, for the 3D view and the flat equal-area map. */
+export interface SphereCell {
+  index: number;
+  centre: Vec3;
+  /** Closed boundary polygon, unit vectors, counter-clockwise seen from outside; first point not repeated. */
+  boundary: Vec3[];
+}
+
+export interface MagModelCandidate {
+  model: MagModel;
+  residualRms: number;
+  parameterCount: number;
+  /** Bayesian information criterion; lower is better. */
+  score: number;
+}
+
+/**
+ * A successful calibration: `corrected = softIronMatrix · (raw − hardIronOffset)` lies on a
+ * sphere of radius fieldStrength. softIronMatrix is symmetric positive definite with
+ * determinant 1 (so it preserves volume and fieldStrength is the geometric-mean radius of
+ * the raw ellipsoid).
+ */
+export interface MagnetometerCalibration {
+  ok: true;
+  model: MagModel;
+  modelReason: string;
+  hardIronOffset: Vec3;
+  softIronMatrix: Mat3;
+  fieldStrength: number;
+  /** RMS of |corrected| − fieldStrength over the samples used. */
+  residualRms: number;
+  residualRmsPercent: number;
+  /** Half-width of the raw ellipsoid along each body axis divided by fieldStrength (≈1 with little soft iron). */
+  scales: Vec3;
+  samplesUsed: number;
+  outliersRejected: number;
+  /** Samples skipped because an axis was NaN or infinite. */
+  nonFiniteSkipped: number;
+  offsetInterval95: [Interval95, Interval95, Interval95];
+  scaleInterval95: [Interval95, Interval95, Interval95];
+  /** Bootstrap resamples behind the intervals (0 when the bootstrap was turned off: intervals collapse to the estimate). */
+  bootstrapResamples: number;
+  candidates: MagModelCandidate[];
+  saturation: SaturationReport;
+  coverage: CoverageResult;
+}
+
+export type MagnetometerRefusalReason = "too-few-samples" | "planar" | "small-cap" | "non-finite" | "not-an-ellipsoid";
+
+export interface MagnetometerRefusal {
+  ok: false;
+  reason: MagnetometerRefusalReason;
+  detail: string;
+  coverage?: CoverageResult;
+}
+
+export type MagnetometerResult = MagnetometerCalibration | MagnetometerRefusal;
+
+export interface CalibrateMagnetometerOptions {
+  /** Default "auto". */
+  model?: MagModelChoice;
+  /** Seed of the bootstrap; default 1. */
+  seed?: number;
+  /** Samples a cell needs to count as covered; default 3. */
+  minSamplesPerCell?: number;
+  /** Run the bootstrap for the 95% intervals; default true. */
+  bootstrap?: boolean;
+  /** Site inclination (dip) in degrees, positive down, used only to word the next orientation; default 60. */
+  inclinationDeg?: number;
+}
+
+/** A named mounting rotation: `v_reference = matrix · v_other`. */
+export interface MountingRotation {
+  name: string;
+  matrix: Mat3;
+}
+
+/** Result of `relativeRotation(reference, other)`: reference ≈ rotation · other. */
+export interface RelativeRotationResult {
+  rotation: Mat3;
+  nearest: MountingRotation;
+  /** Angle in degrees between `rotation` and `nearest.matrix`. */
+  residualDeg: number;
+  /** RMS angle in degrees between reference samples and the rotated other samples. */
+  rmsAngleDeg: number;
+  /** False when the field directions do not span enough of the sphere to fix all three angles. */
+  determined: boolean;
+  samplesUsed: number;
+}
+
+export type CouplingInputKind = "current" | "throttle";
+
+export interface CurrentCouplingOptions {
+  kind: CouplingInputKind;
+  /** Earth-field strength in field units; default the magnitude of the zero-input intercept. */
+  fieldStrength?: number;
+  /** Only samples with mask[i] = 1 are used (e.g. the still window of a motor run). */
+  mask?: Uint8Array;
+}
+
+export interface CurrentCouplingResult {
+  kind: CouplingInputKind;
+  /** Field change per ampere (current) or per full throttle (throttle, 0–1), per body axis. */
+  slopePerUnit: Vec3;
+  slopeMagnitude: number;
+  /** Coefficient of determination of each axis's straight-line fit. */
+  rSquared: Vec3;
+  /** Largest input seen (A, or throttle 0–1 after converting percent). */
+  maxInput: number;
+  /** slopePerUnit · maxInput. */
+  changeAtMax: Vec3;
+  changeAtMaxMagnitude: number;
+  /** changeAtMaxMagnitude as a percentage of fieldStrength. */
+  percentOfField: number;
+  fieldStrength: number;
+  samplesUsed: number;
+}
+
+export type SoftIronLevel = "none" | "mild" | "strong";
+
+/** Rotation paths of a simulated capture; "none" keeps the vehicle still (e.g. a motor-run capture). */
+export type RotationPath = "full" | "yaw-only" | "upper-half" | "partial" | "none";
+
+/** Which body axis points down during a still hold: "+z" level, "-z" upside down, "+x" nose down, … */
+export type BodyFace = "+x" | "-x" | "+y" | "-y" | "+z" | "-z";
+
+export interface SimulatedMagnetometerSpec {
+  /** µT, sensor frame. Default [0,0,0]. */
+  hardIronOffset?: Vec3;
+  /** Symmetric distortion S in raw = S·B + offset, or a level name. Default "none". */
+  softIron?: Mat3 | SoftIronLevel;
+  /** Standard deviation of white noise per axis, µT. Default 0.2. */
+  noise?: number;
+  /** Actual mounting: v_body = mountingRotation · v_sensor. Default identity. */
+  mountingRotation?: Mat3;
+  /** Rotation the logger applies before writing (v_logged = declaredRotation · v_sensor). Default = mountingRotation. */
+  declaredRotation?: Mat3;
+  /** Field added per ampere, µT/A, body frame. Default none. */
+  currentCoupling?: Vec3;
+  /** Readings are clamped to ±clipLevel µT per axis. Default none. */
+  clipLevel?: number;
+  /** Readings are rounded to multiples of this step, µT. Default none. */
+  quantisationStep?: number;
+}
+
+export interface SimulatedHoldsSpec {
+  faces: BodyFace[];
+  /** Default 4 s. */
+  holdSeconds?: number;
+  /** Default 3 s. */
+  moveSeconds?: number;
+  /** Amplitude of hand wobble during holds, degrees. Default 0. */
+  wobbleDeg?: number;
+  /** Fixed tilt away from the exact face per hold, degrees. Default 0. */
+  tiltDeg?: number;
+}
+
+export interface CaptureSpec {
+  seed?: number;
+  /** Default 50 Hz. */
+  sampleRateHz?: number;
+  /** Length of the rotation path in seconds. Default 60. */
+  pathSeconds?: number;
+  /** Default "full". */
+  path?: RotationPath;
+  /** Site field in the NED frame, µT. Default an invented mid-latitude value. */
+  siteFieldNed?: Vec3;
+  /** Gravity magnitude, m/s². Default 9.80665 (standard gravity, CGPM 1901). */
+  gravity?: number;
+  /** One entry per magnetometer (mag0, mag1, …). Default one clean magnetometer. */
+  magnetometers?: SimulatedMagnetometerSpec[];
+  /** Still holds before the rotation path (the accelerometer procedure). */
+  holds?: SimulatedHoldsSpec;
+  /** Accelerometer errors: reading = scale ⊙ specificForce + offset + noise. Omit for no accel columns. */
+  accelerometer?: { offset?: Vec3; scale?: Vec3; noise?: number } | false;
+  /** Gyro errors: reading = rate + bias + noise, rad/s. Omit for no gyro columns. */
+  gyro?: { bias?: Vec3; noise?: number } | false;
+  /** A still motor run appended at the end: current rises and falls; current and throttle columns are written. */
+  currentTest?: { maxAmps: number; seconds?: number; profile?: "ramp" | "steps" };
+  /** A steel object near the capture spot: an induced dipole; the vehicle wanders ±0.3 m while turned. */
+  steel?: { distanceM: number; strength?: number };
+}
+
+export interface CaptureTruthMagnetometer {
+  hardIronOffset: Vec3;
+  softIronMatrix: Mat3;
+  /** The W a perfect fit returns (det 1, symmetric), in the logged frame. */
+  expectedSoftIronCorrection: Mat3;
+  /** The fieldStrength a perfect fit returns, in the logged frame. */
+  expectedFieldStrength: number;
+  /** Hard-iron offset as it appears in the logged frame. */
+  loggedHardIronOffset: Vec3;
+  mountingRotation: Mat3;
+  declaredRotation: Mat3;
+  /** Rotation from this magnetometer's logged frame to mag0's: v_mag0 = r · v_this. */
+  rotationToMag0: Mat3;
+  currentCoupling: Vec3;
+  clipLevel: number | null;
+  quantisationStep: number | null;
+  noise: number;
+}
+
+export interface CaptureTruth {
+  siteFieldNed: Vec3;
+  fieldStrength: number;
+  gravity: number;
+  sampleRateHz: number;
+  magnetometers: CaptureTruthMagnetometer[];
+  accelerometer: { offset: Vec3; scale: Vec3; noise: number } | null;
+  gyro: { bias: Vec3; noise: number } | null;
+  /** Still holds actually simulated, times in seconds from the start. */
+  holds: { face: BodyFace; startS: number; endS: number; tiltDeg: number; wobbleDeg: number }[];
+  /** Window of the motor run, seconds, when a current test was simulated. */
+  currentWindow: { startS: number; endS: number } | null;
+}
+
+export interface SimulatedCapture {
+  table: ColumnTable;
+  truth: CaptureTruth;
+}
+
+export type { Vec3Series };

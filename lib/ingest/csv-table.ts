@@ -1,0 +1,337 @@
+/**
+ * Reads a calibration capture from CSV or TSV into a ColumnTable of canonical fields,
+ * validating as it goes and naming the row and column of the first problem.
+ *
+ * Rows are numbered as lines of the file, the header being row 1, so that a technician can
+ * find them in any editor (a quoted cell spanning two lines would shift the count; loggers
+ * do not write those). Only recognised columns are read as numbers; others are ignored and
+ * listed. Values keep the units they were written in: the unit hints read from column
+ * names are returned beside the table for the analysis to apply.
+ */
+import { Readable } from "node:stream";
+import Papa from "papaparse";
+import { recogniseColumns, sensorsInFields, type ColumnRecognition } from "@/geometry/column-names";
+import type { CaptureField, ColumnTable } from "@/geometry/types";
+import type { UnitSpec } from "@/geometry/units";
+
+/** A file that cannot be read, with where the problem is (1-based line number, column name). */
+export class IngestError extends Error {
+  readonly row: number | null;
+  readonly column: string | null;
+
+  constructor(row: number | null, column: string | null, message: string) {
+    const where = [row !== null ? `row ${row}` : null, column !== null ? `column "${column}"` : null].filter(Boolean).join(", ");
+    super(where ? `${where}: ${message}` : message);
+    this.name = "IngestError";
+    this.row = row;
+    this.column = column;
+  }
+}
+
+export interface IngestOptions {
+  /** Column name → canonical field or "ignore", overriding recognition (the `--map` option). */
+  map?: Record<string, CaptureField | "ignore">;
+  /** Fewest data rows accepted; default 10. */
+  minRows?: number;
+  /** Refuse a file without a time column; default true. */
+  requireTime?: boolean;
+}
+
+export interface IngestedCapture {
+  table: ColumnTable;
+  recognition: ColumnRecognition;
+  /** Canonical field → unit read from its column name. */
+  unitHints: Record<CaptureField, UnitSpec>;
+  delimiter: string;
+  /** Columns of the file that were not read. */
+  ignoredColumns: string[];
+  /** Things worth saying that did not stop the read (a column claimed twice, …). */
+  notes: string[];
+}
+
+const DELIMITERS = [",", "\t", ";", "|"] as const;
+const DELIMITER_NAMES: Record<string, string> = { ",": "comma", "\t": "tab", ";": "semicolon", "|": "vertical bar" };
+const DEFAULT_MIN_ROWS = 10;
+/** Enough text to see the header and a few rows when guessing the delimiter. */
+const PEEK_CHARS = 64 * 1024;
+
+function isSkippableLine(line: string): boolean {
+  const trimmed = line.trim();
+  return trimmed === "" || trimmed.startsWith("#");
+}
+
+/**
+ * Picks the delimiter that splits the header into more than one field and most of the first
+ * data lines into as many (one bad line must not hide the delimiter, so that the bad line is
+ * what gets reported); among those, the one giving most fields. Null when none does.
+ */
+export function detectDelimiter(head: string): string | null {
+  const lines = head.split(/\r\n|\n|\r/).filter((line) => !isSkippableLine(line));
+  if (lines.length === 0) return null;
+  // The last line of a peek may be cut short.
+  const data = lines.slice(1, lines.length > 2 ? Math.min(lines.length - 1, 21) : lines.length);
+  let best: { delimiter: string; agreeing: number; fields: number } | null = null;
+  for (const delimiter of DELIMITERS) {
+    const fields = lines[0].split(delimiter).length;
+    if (fields < 2) continue;
+    const agreeing = data.filter((line) => {
+      const count = line.split(delimiter).length;
+      return count === fields || (count === fields + 1 && line.trimEnd().endsWith(delimiter));
+    }).length;
+    if (agreeing * 2 < data.length) continue;
+    if (!best || agreeing > best.agreeing || (agreeing === best.agreeing && fields > best.fields)) {
+      best = { delimiter, agreeing, fields };
+    }
+  }
+  return best?.delimiter ?? null;
+}
+
+/** Collects validated rows into growing columns; one per parse. */
+class TableBuilder {
+  private row = 0;
+  private header: string[] | null = null;
+  private recognition: ColumnRecognition | null = null;
+  private readers: { index: number; field: CaptureField; header: string; values: Float64Array }[] = [];
+  private timeReader: number = -1;
+  private length = 0;
+  private readonly notes: string[] = [];
+
+  constructor(
+    private readonly options: IngestOptions,
+    private readonly delimiter: string,
+  ) {}
+
+  addRows(rows: string[][]): void {
+    for (const cells of rows) {
+      this.row += 1;
+      if (cells.length === 1 && isSkippableLine(cells[0])) continue;
+      if (this.header === null) this.readHeader(cells);
+      else this.readData(cells);
+    }
+  }
+
+  private readHeader(cells: string[]): void {
+    if (cells.length < 2) {
+      throw new IngestError(
+        this.row,
+        null,
+        `the header "${cells[0].slice(0, 80)}" is a single column: the delimiter was not recognised; separate columns with commas, tabs or semicolons`,
+      );
+    }
+    this.header = cells.map((cell) => cell.trim());
+    const recognition = recogniseColumns(this.header, this.options.map);
+    this.recognition = recognition;
+    for (const conflict of recognition.conflicts) {
+      this.notes.push(`${conflict.field} is named by ${conflict.headers.map((h) => `"${h}"`).join(" and ")}; the first was read`);
+    }
+    for (const { sensor, missing } of recognition.incompleteSensors) {
+      throw new IngestError(this.row, missing[0], `missing required column: ${sensor} has no ${missing.join(", ")} column`);
+    }
+    const sensors = sensorsInFields(Object.keys(recognition.fieldIndex));
+    if (sensors.mag.length === 0 && sensors.accel.length === 0 && sensors.gyro.length === 0) {
+      throw new IngestError(
+        this.row,
+        null,
+        `missing required columns: no magnetometer, accelerometer or gyroscope columns recognised among ${this.header.map((h) => `"${h}"`).join(", ")}; name them like mag_x or accel_x, or map them with --map column=mag0.x`,
+      );
+    }
+    if ((this.options.requireTime ?? true) && !("time" in recognition.fieldIndex)) {
+      throw new IngestError(this.row, "time", "missing required column: no time column recognised; name it time, timestamp, time_ms or time_us, or map one with --map column=time");
+    }
+    for (const [field, index] of Object.entries(recognition.fieldIndex)) {
+      this.readers.push({ index, field, header: this.header[index], values: new Float64Array(1024) });
+    }
+    this.readers.sort((a, b) => a.index - b.index);
+    this.timeReader = this.readers.findIndex((reader) => reader.field === "time");
+  }
+
+  private readData(cells: string[]): void {
+    const width = this.header!.length;
+    if (cells.length !== width) {
+      const onlyTrailingBlanks = cells.length > width && cells.slice(width).every((cell) => cell.trim() === "");
+      if (!onlyTrailingBlanks) {
+        const hint = cells.length === 1 ? ` (is this row separated by something other than a ${DELIMITER_NAMES[this.delimiter]}?)` : "";
+        throw new IngestError(this.row, null, `${cells.length} values where the header has ${width} columns${hint}`);
+      }
+    }
+    const at = this.length;
+    if (at === this.readers[0]?.values.length) this.grow();
+    for (let r = 0; r < this.readers.length; r++) {
+      const reader = this.readers[r];
+      const cell = cells[reader.index];
+      const value = parseNumber(cell);
+      if (!Number.isFinite(value)) throw new IngestError(this.row, reader.header, describeBadCell(cell));
+      reader.values[at] = value;
+    }
+    if (this.timeReader >= 0 && at > 0) {
+      const time = this.readers[this.timeReader].values;
+      if (time[at] < time[at - 1]) {
+        throw new IngestError(this.row, this.readers[this.timeReader].header, `time goes backwards (${time[at]} after ${time[at - 1]}); rows must be in time order`);
+      }
+    }
+    this.length = at + 1;
+  }
+
+  private grow(): void {
+    for (const reader of this.readers) {
+      const larger = new Float64Array(Math.ceil(reader.values.length * 1.5));
+      larger.set(reader.values);
+      reader.values = larger;
+    }
+  }
+
+  finish(): IngestedCapture {
+    if (this.header === null || this.recognition === null) throw new IngestError(null, null, "the file is empty: no header row");
+    const minRows = this.options.minRows ?? DEFAULT_MIN_ROWS;
+    if (this.length < minRows) {
+      throw new IngestError(null, null, `too few samples: ${this.length} data rows, at least ${minRows} are needed`);
+    }
+    const columns: Record<CaptureField, Float64Array> = {};
+    for (const reader of this.readers) columns[reader.field] = reader.values.slice(0, this.length);
+    const fields = this.readers.map((reader) => reader.field);
+    return {
+      table: { fields, columns, length: this.length },
+      recognition: this.recognition,
+      unitHints: this.recognition.unitHints,
+      delimiter: this.delimiter,
+      ignoredColumns: this.recognition.columns.filter((column) => column.field === null).map((column) => column.header),
+      notes: this.notes,
+    };
+  }
+}
+
+/** Unary plus accepts "", " " and "0x1f"; a calibration file means none of those. */
+function parseNumber(cell: string | undefined): number {
+  if (cell === undefined) return Number.NaN;
+  const trimmed = cell.trim();
+  if (trimmed === "" || !/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(trimmed)) return Number.NaN;
+  return Number(trimmed);
+}
+
+function describeBadCell(cell: string | undefined): string {
+  const trimmed = (cell ?? "").trim();
+  if (trimmed === "") return "empty cell where a number is needed";
+  if (/^[+-]?(nan|inf|infinity)$/i.test(trimmed)) return `"${trimmed}" is not a finite number`;
+  if (/^[+-]?\d+,\d+$/.test(trimmed)) return `"${trimmed}" uses a decimal comma; write decimals with a point`;
+  return `"${trimmed.slice(0, 40)}" is text where a number is needed`;
+}
+
+function stripBom(text: string): string {
+  return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+}
+
+function delimiterOrThrow(head: string): string {
+  const delimiter = detectDelimiter(head);
+  if (delimiter !== null) return delimiter;
+  const firstLine = head.split(/\r\n|\n|\r/).find((line) => !isSkippableLine(line));
+  if (firstLine === undefined) throw new IngestError(null, null, "the file is empty: no header row");
+  const lines = head.split(/\r\n|\n|\r/);
+  const headerRow = lines.indexOf(firstLine) + 1;
+  throw new IngestError(
+    headerRow,
+    null,
+    `cannot tell how columns are separated: no comma, tab, semicolon or vertical bar splits the header "${firstLine.slice(0, 80)}" and the rows below it into the same number of columns`,
+  );
+}
+
+/** The chunked form of Papa.parse, which its typings only declare for files and downloads. */
+interface ChunkedParseConfig {
+  delimiter: string;
+  skipEmptyLines: false;
+  chunkSize?: number;
+  chunk(results: Papa.ParseResult<string[]>, parser: Papa.Parser): void;
+  complete?(): void;
+  error?(error: Error): void;
+}
+const parseChunked = Papa.parse as unknown as (input: string | NodeJS.ReadableStream, config: ChunkedParseConfig) => void;
+
+/** Parses a whole CSV/TSV text. Throws IngestError on the first problem. */
+export function parseCsvTable(text: string, options: IngestOptions = {}): IngestedCapture {
+  const body = stripBom(text);
+  const delimiter = delimiterOrThrow(body.slice(0, PEEK_CHARS));
+  const builder = new TableBuilder(options, delimiter);
+  let failure: unknown = null;
+  parseChunked(body, {
+    delimiter,
+    skipEmptyLines: false,
+    chunkSize: 1024 * 1024,
+    chunk: (results, parser) => {
+      try {
+        builder.addRows(results.data);
+      } catch (error) {
+        failure = error;
+        parser.abort();
+      }
+    },
+  });
+  if (failure) throw failure;
+  return builder.finish();
+}
+
+/**
+ * Parses CSV/TSV from a stream (an upload, a file) chunk by chunk: memory holds one chunk of
+ * text and the growing numeric columns, never the text of the whole file. Rejects with an
+ * IngestError on the first problem and stops reading.
+ */
+export async function parseCsvStream(input: Readable, options: IngestOptions = {}): Promise<IngestedCapture> {
+  input.setEncoding("utf8");
+  const iterator = input[Symbol.asyncIterator]() as AsyncIterator<string>;
+  let head = "";
+  let ended = false;
+  while (head.length < PEEK_CHARS) {
+    const next = await iterator.next();
+    if (next.done) {
+      ended = true;
+      break;
+    }
+    head += next.value;
+  }
+  head = stripBom(head);
+  let delimiter: string;
+  try {
+    delimiter = delimiterOrThrow(head);
+  } catch (error) {
+    input.destroy();
+    throw error;
+  }
+
+  async function* remainder(): AsyncGenerator<string> {
+    yield head;
+    if (ended) return;
+    for (;;) {
+      const next = await iterator.next();
+      if (next.done) return;
+      yield next.value;
+    }
+  }
+  const source = Readable.from(remainder(), { objectMode: true });
+  const builder = new TableBuilder(options, delimiter);
+
+  return new Promise<IngestedCapture>((resolve, reject) => {
+    let failure: unknown = null;
+    parseChunked(source, {
+      delimiter,
+      skipEmptyLines: false,
+      chunk: (results, parser) => {
+        if (failure) return;
+        try {
+          builder.addRows(results.data);
+        } catch (error) {
+          failure = error;
+          parser.abort();
+          source.destroy();
+          input.destroy();
+        }
+      },
+      complete: () => {
+        if (failure) return reject(failure);
+        try {
+          resolve(builder.finish());
+        } catch (error) {
+          reject(error);
+        }
+      },
+      error: (error: Error) => reject(failure ?? error),
+    });
+  });
+}

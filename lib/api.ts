@@ -1,0 +1,70 @@
+import "server-only";
+import { NextResponse } from "next/server";
+import { z } from "zod";
+import { getWorkspaceAccess } from "@/lib/data/workspaces";
+import { contextFor, getViewer, type WorkspaceContext } from "@/lib/guard";
+import type { Action } from "@/lib/permissions";
+import type { UserSummary } from "@/lib/data/users";
+import { UserFacingError } from "@/lib/action";
+
+export function jsonError(status: number, error: string, message: string, extra?: Record<string, unknown>) {
+  return NextResponse.json({ error, message, ...extra }, { status });
+}
+
+/** Validate a JSON body; the error names each offending field. */
+export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<{ ok: true; data: z.infer<S> } | { ok: false; response: Response }> {
+  let body: unknown;
+  try {
+    body = await request.json();
+  } catch {
+    return { ok: false, response: jsonError(400, "invalid", "The request body is not valid JSON.") };
+  }
+  const result = schema.safeParse(body);
+  if (result.success) return { ok: true, data: result.data };
+  const fields: Record<string, string> = {};
+  for (const issue of result.error.issues) fields[issue.path.join(".") || "body"] ??= issue.message;
+  return { ok: false, response: jsonError(400, "invalid", "Some fields need attention.", { fields }) };
+}
+
+async function guarded(work: () => Promise<Response>): Promise<Response> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof UserFacingError) return jsonError(409, "conflict", error.message);
+    console.error("[api] unexpected error", error);
+    return jsonError(500, "internal", "Something went wrong on our side.");
+  }
+}
+
+type Params<P> = { params: Promise<P> };
+
+/** A route handler for any signed-in user: 401 without a session. */
+export function userRoute<P = Record<string, never>>(handler: (request: Request, viewer: UserSummary, params: P) => Promise<Response>) {
+  return async (request: Request, { params }: Params<P>) =>
+    guarded(async () => {
+      const viewer = await getViewer();
+      if (!viewer) return jsonError(401, "unauthenticated", "Sign in first.");
+      return handler(request, viewer, await params);
+    });
+}
+
+/**
+ * A route handler under /api/workspaces/[slug]/…: 401 without a session, 404 for a
+ * non-member (never revealing the workspace), 403 when the role lacks `permission`.
+ */
+export function workspaceRoute<P extends { slug: string }>(
+  permission: Action,
+  handler: (request: Request, context: WorkspaceContext, params: P) => Promise<Response>,
+) {
+  return async (request: Request, { params }: Params<P>) =>
+    guarded(async () => {
+      const viewer = await getViewer();
+      if (!viewer) return jsonError(401, "unauthenticated", "Sign in first.");
+      const resolved = await params;
+      const access = await getWorkspaceAccess(viewer.id, resolved.slug);
+      if (!access) return jsonError(404, "not-found", "Not found.");
+      const context = contextFor(viewer, access);
+      if (!context.can(permission)) return jsonError(403, "forbidden", "Your role in this workspace does not allow this.");
+      return handler(request, context, resolved);
+    });
+}

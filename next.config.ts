@@ -1,0 +1,14 @@
+import type { NextConfig } from "next";
+
+const nextConfig: NextConfig = {
+  // Sequelize loads its dialect dynamically; bundling it breaks that lookup.
+  serverExternalPackages: ["sequelize", "pg", "pg-hstore", "iron-session", "nodemailer", "geomagnetism"],
+  poweredByHeader: false,
+  reactStrictMode: true,
+  typedRoutes: false,
+  experimental: { authInterrupts: true },
+  // The test command builds into its own folder so it never disturbs a running `npm start`.
+  distDir: process.env.NEXT_DIST_DIR ?? ".next",
+};
+
+export default nextConfig;

@@ -1,0 +1,197 @@
+/**
+ * Finds the stretches of a continuous recording where the vehicle was held still, from the
+ * moving-window variance of the accelerometer (and of the gyroscope when there is one).
+ *
+ * A sample is still when, over a window centred on it, the standard deviation of the
+ * acceleration vector (the root of the summed per-axis variances) stays below a threshold,
+ * and the RMS angular rate (after removing the gyro's bias, estimated as the median rate over
+ * the accelerometer-still samples) stays below another. The rate test uses the RMS, not the
+ * spread, because a steady turn about the vertical leaves gravity and the rate's spread
+ * unchanged. Runs of still samples shorter than a minimum duration
+ * are dropped, and a run is split where the time stamps jump (a logging gap).
+ *
+ * Default thresholds (common practice for hand-held calibration with MEMS sensors):
+ * - window 0.5 s: long enough to average sensor noise, short enough to resolve the moves
+ *   between holds;
+ * - acceleration 0.3 m/s² (≈ 0.03 g): a few times the noise of a typical MEMS accelerometer,
+ *   well below the change a turn of a few degrees per second makes to gravity's components;
+ * - angular rate 0.1 rad/s RMS (≈ 6 °/s): a hand slowly turning a vehicle exceeds it;
+ * - minimum duration 1 s.
+ * A hold that passes still may still wobble; how much is judged per pose afterwards.
+ *
+ * Cost: one pass over the samples with running sums; memory: one byte per sample.
+ */
+import type { Vec3Series } from "./types";
+
+export interface StillPeriod {
+  /** First sample of the period. */
+  startIndex: number;
+  /** One past the last sample. */
+  endIndex: number;
+  startTimeS: number;
+  endTimeS: number;
+  durationS: number;
+}
+
+export interface StillPeriodOptions {
+  /** Width of the moving window, seconds; default 0.5. */
+  windowS?: number;
+  /** Largest window standard deviation of the acceleration vector, m/s²; default 0.3. */
+  accelStdThresholdMps2?: number;
+  /** Largest window RMS of the bias-free angular-rate vector, rad/s; default 0.1. */
+  gyroRateThresholdRadPerS?: number;
+  /** Shortest period kept, seconds; default 1. */
+  minDurationS?: number;
+  /** Angular rate samples aligned with the acceleration, rad/s. */
+  gyro?: Vec3Series;
+}
+
+export const STILL_PERIOD_DEFAULTS = {
+  windowS: 0.5,
+  accelStdThresholdMps2: 0.3,
+  gyroRateThresholdRadPerS: 0.1,
+  minDurationS: 1,
+} as const;
+
+/**
+ * Median step between time stamps, seconds, from at most 10,001 evenly spread steps (enough
+ * for a robust estimate without sorting a million numbers).
+ */
+export function medianTimeStep(timeS: Float64Array): number {
+  const n = timeS.length;
+  if (n < 2) return Number.NaN;
+  const stride = Math.max(1, Math.floor((n - 1) / 10_000));
+  const steps: number[] = [];
+  for (let i = 1; i < n; i += stride) steps.push(timeS[i] - timeS[i - 1]);
+  steps.sort((a, b) => a - b);
+  return steps[Math.floor(steps.length / 2)];
+}
+
+/**
+ * Marks each sample whose centred window has a vector standard deviation at or below
+ * `threshold`, AND-ing into `mask` (which starts as all ones). Window sums are kept relative
+ * to the first sample of each axis to limit cancellation in Σx² − (Σx)²/n.
+ */
+function markLowVariance(series: Vec3Series, halfWindow: number, threshold: number, mask: Uint8Array): void {
+  const { x, y, z } = series;
+  const n = x.length;
+  const x0 = x[0];
+  const y0 = y[0];
+  const z0 = z[0];
+  let sx = 0, sy = 0, sz = 0, sxx = 0, syy = 0, szz = 0;
+  let lo = 0;
+  let hi = -1; // window is [lo, hi]
+  const limit = threshold * threshold;
+  for (let i = 0; i < n; i++) {
+    const wantHi = Math.min(n - 1, i + halfWindow);
+    const wantLo = Math.max(0, i - halfWindow);
+    while (hi < wantHi) {
+      hi++;
+      const dx = x[hi] - x0, dy = y[hi] - y0, dz = z[hi] - z0;
+      sx += dx; sy += dy; sz += dz;
+      sxx += dx * dx; syy += dy * dy; szz += dz * dz;
+    }
+    while (lo < wantLo) {
+      const dx = x[lo] - x0, dy = y[lo] - y0, dz = z[lo] - z0;
+      sx -= dx; sy -= dy; sz -= dz;
+      sxx -= dx * dx; syy -= dy * dy; szz -= dz * dz;
+      lo++;
+    }
+    const count = hi - lo + 1;
+    const variance = (sxx - (sx * sx) / count + syy - (sy * sy) / count + szz - (sz * sz) / count) / count;
+    if (!(variance <= limit)) mask[i] = 0;
+  }
+}
+
+/**
+ * Clears from `mask` each sample whose centred window has an RMS of |rate − bias| above
+ * `threshold`.
+ */
+function markLowRate(series: Vec3Series, bias: [number, number, number], halfWindow: number, threshold: number, mask: Uint8Array): void {
+  const { x, y, z } = series;
+  const n = x.length;
+  let sum = 0;
+  let lo = 0;
+  let hi = -1;
+  const limit = threshold * threshold;
+  const square = (i: number) => {
+    const dx = x[i] - bias[0], dy = y[i] - bias[1], dz = z[i] - bias[2];
+    return dx * dx + dy * dy + dz * dz;
+  };
+  for (let i = 0; i < n; i++) {
+    const wantHi = Math.min(n - 1, i + halfWindow);
+    const wantLo = Math.max(0, i - halfWindow);
+    while (hi < wantHi) sum += square(++hi);
+    while (lo < wantLo) sum -= square(lo++);
+    if (!(sum / (hi - lo + 1) <= limit)) mask[i] = 0;
+  }
+}
+
+/** Median of each axis over the marked samples (at most ~10,000 of them, evenly spread). */
+function maskedMedian(series: Vec3Series, mask: Uint8Array): [number, number, number] {
+  let marked = 0;
+  for (let i = 0; i < mask.length; i++) marked += mask[i];
+  if (marked === 0) return [0, 0, 0];
+  const stride = Math.max(1, Math.floor(marked / 10_000));
+  const picks: number[] = [];
+  let seen = 0;
+  for (let i = 0; i < mask.length; i++) {
+    if (mask[i] === 1 && seen++ % stride === 0) picks.push(i);
+  }
+  const median = (axis: Float64Array) => {
+    const values = picks.map((i) => axis[i]).sort((a, b) => a - b);
+    return values[Math.floor(values.length / 2)];
+  };
+  return [median(series.x), median(series.y), median(series.z)];
+}
+
+/**
+ * Still periods of a recording.
+ *
+ * @param timeS sample times in seconds, non-decreasing.
+ * @param accel specific force in m/s² (any constant scale error is harmless).
+ */
+export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options: StillPeriodOptions = {}): StillPeriod[] {
+  const n = timeS.length;
+  if (n < 3) return [];
+  const windowS = options.windowS ?? STILL_PERIOD_DEFAULTS.windowS;
+  const minDurationS = options.minDurationS ?? STILL_PERIOD_DEFAULTS.minDurationS;
+  const step = medianTimeStep(timeS);
+  if (!(step > 0)) return [];
+  const halfWindow = Math.max(1, Math.round(windowS / step / 2));
+  // A jump in the time stamps of more than ten steps (and at least a quarter second) is a gap.
+  const gapS = Math.max(10 * step, 0.25);
+
+  const mask = new Uint8Array(n).fill(1);
+  markLowVariance(accel, halfWindow, options.accelStdThresholdMps2 ?? STILL_PERIOD_DEFAULTS.accelStdThresholdMps2, mask);
+  if (options.gyro) {
+    const bias = maskedMedian(options.gyro, mask);
+    markLowRate(options.gyro, bias, halfWindow, options.gyroRateThresholdRadPerS ?? STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS, mask);
+  }
+
+  const periods: StillPeriod[] = [];
+  let start = -1;
+  const close = (endIndex: number) => {
+    const startTimeS = timeS[start];
+    const endTimeS = timeS[endIndex - 1];
+    if (endTimeS - startTimeS >= minDurationS) {
+      periods.push({ startIndex: start, endIndex, startTimeS, endTimeS, durationS: endTimeS - startTimeS });
+    }
+    start = -1;
+  };
+  for (let i = 0; i < n; i++) {
+    if (mask[i] === 1) {
+      if (start >= 0 && timeS[i] - timeS[i - 1] > gapS) close(i);
+      if (start < 0) start = i;
+    } else if (start >= 0) close(i);
+  }
+  if (start >= 0) close(n);
+  return periods;
+}
+
+/** One byte per sample: 1 inside any of the periods. */
+export function stillMask(length: number, periods: StillPeriod[]): Uint8Array {
+  const mask = new Uint8Array(length);
+  for (const period of periods) mask.fill(1, period.startIndex, period.endIndex);
+  return mask;
+}

@@ -1,0 +1,91 @@
+import { describe, expect, test } from "vitest";
+import { findStillPeriods, medianTimeStep, stillMask } from "@/geometry/still-periods";
+import { accelerometerRecording, SIX_FACES } from "./support/accelerometer-recording";
+
+describe("findStillPeriods", () => {
+  test.each([
+    { label: "50 Hz", rate: 50 },
+    { label: "200 Hz", rate: 200 },
+    { label: "10 Hz", rate: 10 },
+  ])("finds one period per hold, inside the hold ($label)", ({ rate }) => {
+    const recording = accelerometerRecording({ holds: SIX_FACES.map((face) => ({ face })), sampleRateHz: rate });
+    const periods = findStillPeriods(recording.time, recording.accel);
+    expect(periods).toHaveLength(6);
+    periods.forEach((period, i) => {
+      const hold = recording.holdWindows[i];
+      // Within half a window (0.25 s) plus a sample of the true hold, and most of it.
+      expect(period.startTimeS).toBeGreaterThanOrEqual(hold.startS - 0.3);
+      expect(period.endTimeS).toBeLessThanOrEqual(hold.endS + 0.3);
+      expect(period.durationS).toBeGreaterThan(0.8 * (hold.endS - hold.startS));
+    });
+  });
+
+  test("the gyroscope vetoes samples where only the rate shows motion", () => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 6 }], gyroBias: [0.03, -0.02, 0.05] });
+    // A steady rotation about the vertical leaves gravity's components unchanged.
+    for (let i = 100; i < 200; i++) recording.gyro.z[i] += 1;
+    const withoutGyro = findStillPeriods(recording.time, recording.accel);
+    const withGyro = findStillPeriods(recording.time, recording.accel, { gyro: recording.gyro });
+    expect(withoutGyro).toHaveLength(1);
+    expect(withGyro).toHaveLength(2);
+  });
+
+  test.each([
+    { label: "short holds are dropped", holdS: 0.6, minDurationS: 1, expected: 0 },
+    { label: "a lower minimum keeps them", holdS: 0.9, minDurationS: 0.2, expected: 2 },
+  ])("$label", ({ holdS, minDurationS, expected }) => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS }, { face: "-z", holdS }] });
+    expect(findStillPeriods(recording.time, recording.accel, { minDurationS })).toHaveLength(expected);
+  });
+
+  test("a gap in the time stamps splits a period", () => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 6 }] });
+    for (let i = 150; i < recording.time.length; i++) recording.time[i] += 5;
+    const periods = findStillPeriods(recording.time, recording.accel);
+    expect(periods).toHaveLength(2);
+    expect(periods[0].endIndex).toBe(150);
+  });
+
+  test("a large wobble is not still at the default threshold", () => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", wobbleDeg: 8 }] });
+    expect(findStillPeriods(recording.time, recording.accel)).toHaveLength(0);
+  });
+
+  test("a million samples are handled (one pass, one byte per sample)", () => {
+    const n = 1_000_000;
+    const time = new Float64Array(n);
+    const x = new Float64Array(n);
+    const y = new Float64Array(n);
+    const z = new Float64Array(n).fill(-9.8);
+    for (let i = 0; i < n; i++) {
+      time[i] = i / 1000;
+      // Move for one second in every ten.
+      if (i % 10_000 < 1000) x[i] = 3 * Math.sin(i / 50);
+    }
+    const periods = findStillPeriods(time, { x, y, z });
+    expect(periods.length).toBe(100);
+  });
+});
+
+describe("medianTimeStep", () => {
+  test.each([
+    { label: "regular", times: [0, 0.02, 0.04, 0.06, 0.08], step: 0.02 },
+    { label: "one dropout", times: [0, 1, 2, 30, 31, 32], step: 1 },
+  ])("$label", ({ times, step }) => {
+    expect(medianTimeStep(Float64Array.from(times))).toBeCloseTo(step, 12);
+  });
+
+  test("a single sample has no step", () => {
+    expect(medianTimeStep(Float64Array.from([5]))).toBeNaN();
+  });
+});
+
+describe("stillMask", () => {
+  test("marks exactly the periods", () => {
+    const mask = stillMask(10, [
+      { startIndex: 1, endIndex: 3, startTimeS: 0, endTimeS: 0, durationS: 0 },
+      { startIndex: 6, endIndex: 7, startTimeS: 0, endTimeS: 0, durationS: 0 },
+    ]);
+    expect(Array.from(mask)).toEqual([0, 1, 1, 0, 0, 0, 1, 0, 0, 0]);
+  });
+});

@@ -12,8 +12,10 @@
 set -euo pipefail
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
-DATA_DIR="${LOXODROME_DATA_DIR:-$ROOT/.data}"
-PGDATA="$DATA_DIR/postgres"
+# The cluster's folder (LOXODROME_PGDATA) is independent of the app's data folder, so a test
+# run with its own temporary data folder still shares the one cluster.
+PGDATA="${LOXODROME_PGDATA:-$ROOT/.data/postgres}"
+DATA_DIR="$(dirname "$PGDATA")"
 PGPORT="${LOXODROME_PG_PORT:-54329}"
 PGHOST=127.0.0.1
 DB_NAME="${LOXODROME_DB_NAME:-loxodrome}"
@@ -118,7 +120,7 @@ case "$CMD" in
     ;;
   drop)
     PG_CTL="$(find_bin pg_ctl)"
-    is_running && psql_admin -c "DROP DATABASE IF EXISTS \"${2:?database name}\" WITH (FORCE)"
+    if is_running; then psql_admin -c "DROP DATABASE IF EXISTS \"${2:?database name}\" WITH (FORCE)"; fi
     ;;
   stop)
     PG_CTL="$(find_bin pg_ctl)"

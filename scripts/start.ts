@@ -28,9 +28,9 @@ async function main() {
     log("mail", `SMTP sink on 127.0.0.1:${smtpPort}; captured mail at http://${host}:${port}/dev/mail`);
   }
 
-  const env = {
+  const env: NodeJS.ProcessEnv = {
     ...process.env,
-    NODE_ENV: "production",
+    NODE_ENV: "production" as const,
     NEXT_TELEMETRY_DISABLED: "1",
     APP_URL: process.env.APP_URL ?? `http://${host}:${port}`,
     // A local demo over plain HTTP: cookies without Secure, the dev secret, and the captured-mail page.

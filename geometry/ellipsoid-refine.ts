@@ -1,0 +1,441 @@
+/**
+ * Geometric refinement of an ellipsoid fit by Levenberg–Marquardt (Levenberg 1944,
+ * Marquardt 1963; damping schedule after Madsen, Nielsen & Tingleff, "Methods for
+ * non-linear least squares problems", 2004).
+ *
+ * The algebraic fit minimises a quantity without physical meaning and is biased when the
+ * noise is large or the coverage partial. Here the radial error of each sample is
+ * minimised directly: r = |M(u − b)| − 1 in normalised coordinates u, which equals
+ * (|W(x − b)| − R) / R once W = M / det(M)^(1/3) and R = scale / det(M)^(1/3): the relative
+ * radial error. Parameters: offset b (3) plus M as a scalar (sphere, 4 in all), a diagonal
+ * (axis, 6) or a symmetric matrix (full, 9). Jacobian of the full model: ∂r/∂b = −M n,
+ * ∂r/∂M_kl = n_k d_l + n_l d_k with d = u − b, n = M d / |M d|; the smaller models sum its
+ * columns (a scalar M moves all three diagonal entries together).
+ *
+ * No N×9 Jacobian is stored: every pass streams the samples and sums what it needs.
+ * Captures longer than twice `subsampleLimit` first iterate on an evenly strided subsample;
+ * the steps that follow take their gradient and cost from every sample and their
+ * curvature JᵀJ from the subsample (scaled to the full count) — an inexact Gauss–Newton step
+ * whose curvature is off by about 1/√(subsample size), so it still converges in a few steps
+ * while the per-sample work stays at the nine gradient sums.
+ */
+import { Matrix, solve } from "ml-matrix";
+import type { EllipsoidEstimate } from "./ellipsoid-fit";
+import type { MagModel } from "./magnetometer-types";
+import { normalisationOf, type Normalisation, type SampleSelection } from "./normal-equations";
+import type { Mat3, Vec3, Vec3Series } from "./types";
+import { EPSILON, det3, scaleMat, sub } from "./vector";
+
+export interface RefineOptions {
+  /** Default 50. */
+  maxIterations?: number;
+  /** Captures longer than twice this first iterate on a strided subsample of this size. Default 40,000. */
+  subsampleLimit?: number;
+}
+
+export interface RefineResult {
+  estimate: EllipsoidEstimate;
+  /** RMS of |W(x − b)| − R over the selected samples, input units. */
+  residualRms: number;
+  iterations: number;
+  converged: boolean;
+}
+
+const PARAMETERS: Record<MagModel, number> = { sphere: 4, axis: 6, full: 9 };
+
+/** Normal equations of the full 9-parameter model: order b0 b1 b2 m00 m11 m22 m12 m02 m01. */
+const jtj = new Float64Array(81);
+const jtr = new Float64Array(9);
+const row = new Float64Array(9);
+/** The symmetric matrix M of the current parameters, as m00 m11 m22 m12 m02 m01. */
+const shape = new Float64Array(6);
+
+interface Sums {
+  cost: number;
+  count: number;
+}
+
+function loadShape(model: MagModel, p: Float64Array): void {
+  if (model === "sphere") {
+    shape.set([p[3], p[3], p[3], 0, 0, 0]);
+  } else if (model === "axis") {
+    shape.set([p[3], p[4], p[5], 0, 0, 0]);
+  } else {
+    shape.set(p.subarray(3, 9));
+  }
+}
+
+/** Sum of squared radial residuals at offset p[0..2] and the loaded shape. Allocation-free. */
+function sumCost(series: Vec3Series, norm: Normalisation, p: Float64Array, selection: SampleSelection): Sums {
+  const { x, y, z } = series;
+  const { mask, indices } = selection;
+  const total = indices ? indices.length : x.length;
+  const inv = 1 / norm.scale;
+  const cx = norm.centre[0] + p[0] * norm.scale;
+  const cy = norm.centre[1] + p[1] * norm.scale;
+  const cz = norm.centre[2] + p[2] * norm.scale;
+  const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
+  let cost = 0;
+  let count = 0;
+  for (let k = 0; k < total; k++) {
+    const i = indices ? indices[k] : k;
+    if (mask && mask[i] === 0) continue;
+    const d0 = (x[i] - cx) * inv;
+    const d1 = (y[i] - cy) * inv;
+    const d2 = (z[i] - cz) * inv;
+    const v0 = m00 * d0 + m01 * d1 + m02 * d2;
+    const v1 = m01 * d0 + m11 * d1 + m12 * d2;
+    const v2 = m02 * d0 + m12 * d1 + m22 * d2;
+    const r = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2) - 1;
+    cost += r * r;
+    count++;
+  }
+  return { cost, count };
+}
+
+/**
+ * Cost and gradient Jᵀr of the full model (into `jtr`). Sums live in locals: this loop runs
+ * over every sample of long captures. Allocation-free.
+ */
+function sumGradient(
+  series: Vec3Series,
+  norm: Normalisation,
+  p: Float64Array,
+  selection: SampleSelection,
+): Sums {
+  const { x, y, z } = series;
+  const { mask, indices } = selection;
+  const total = indices ? indices.length : x.length;
+  const inv = 1 / norm.scale;
+  const cx = norm.centre[0] + p[0] * norm.scale;
+  const cy = norm.centre[1] + p[1] * norm.scale;
+  const cz = norm.centre[2] + p[2] * norm.scale;
+  const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
+  let g0 = 0, g1 = 0, g2 = 0, g3 = 0, g4 = 0, g5 = 0, g6 = 0, g7 = 0, g8 = 0;
+  let cost = 0;
+  let count = 0;
+  for (let k = 0; k < total; k++) {
+    const i = indices ? indices[k] : k;
+    if (mask && mask[i] === 0) continue;
+    const d0 = (x[i] - cx) * inv;
+    const d1 = (y[i] - cy) * inv;
+    const d2 = (z[i] - cz) * inv;
+    const v0 = m00 * d0 + m01 * d1 + m02 * d2;
+    const v1 = m01 * d0 + m11 * d1 + m12 * d2;
+    const v2 = m02 * d0 + m12 * d1 + m22 * d2;
+    const rho = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2);
+    const r = rho - 1;
+    cost += r * r;
+    count++;
+    // A sample at the centre has no radial direction and adds nothing to the gradient.
+    if (rho < EPSILON) continue;
+    const n0 = v0 / rho;
+    const n1 = v1 / rho;
+    const n2 = v2 / rho;
+    const j0 = -(m00 * n0 + m01 * n1 + m02 * n2);
+    const j1 = -(m01 * n0 + m11 * n1 + m12 * n2);
+    const j2 = -(m02 * n0 + m12 * n1 + m22 * n2);
+    const j3 = n0 * d0;
+    const j4 = n1 * d1;
+    const j5 = n2 * d2;
+    const j6 = n1 * d2 + n2 * d1;
+    const j7 = n0 * d2 + n2 * d0;
+    const j8 = n0 * d1 + n1 * d0;
+    g0 += j0 * r;
+    g1 += j1 * r;
+    g2 += j2 * r;
+    g3 += j3 * r;
+    g4 += j4 * r;
+    g5 += j5 * r;
+    g6 += j6 * r;
+    g7 += j7 * r;
+    g8 += j8 * r;
+  }
+  jtr[0] = g0;
+  jtr[1] = g1;
+  jtr[2] = g2;
+  jtr[3] = g3;
+  jtr[4] = g4;
+  jtr[5] = g5;
+  jtr[6] = g6;
+  jtr[7] = g7;
+  jtr[8] = g8;
+  return { cost, count };
+}
+
+/**
+ * Cost, gradient Jᵀr and curvature JᵀJ of the full model (into `jtr`, `jtj`). Runs only on
+ * subsamples and short captures, so the 45 curvature sums stay in a scratch array.
+ */
+function sumNormalEquations(series: Vec3Series, norm: Normalisation, p: Float64Array, selection: SampleSelection): Sums {
+  const { x, y, z } = series;
+  const { mask, indices } = selection;
+  const total = indices ? indices.length : x.length;
+  const inv = 1 / norm.scale;
+  const cx = norm.centre[0] + p[0] * norm.scale;
+  const cy = norm.centre[1] + p[1] * norm.scale;
+  const cz = norm.centre[2] + p[2] * norm.scale;
+  const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
+  let cost = 0;
+  let count = 0;
+  jtj.fill(0);
+  jtr.fill(0);
+  for (let k = 0; k < total; k++) {
+    const i = indices ? indices[k] : k;
+    if (mask && mask[i] === 0) continue;
+    const d0 = (x[i] - cx) * inv;
+    const d1 = (y[i] - cy) * inv;
+    const d2 = (z[i] - cz) * inv;
+    const v0 = m00 * d0 + m01 * d1 + m02 * d2;
+    const v1 = m01 * d0 + m11 * d1 + m12 * d2;
+    const v2 = m02 * d0 + m12 * d1 + m22 * d2;
+    const rho = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2);
+    const r = rho - 1;
+    cost += r * r;
+    count++;
+    if (rho < EPSILON) continue;
+    const n0 = v0 / rho;
+    const n1 = v1 / rho;
+    const n2 = v2 / rho;
+    row[0] = -(m00 * n0 + m01 * n1 + m02 * n2);
+    row[1] = -(m01 * n0 + m11 * n1 + m12 * n2);
+    row[2] = -(m02 * n0 + m12 * n1 + m22 * n2);
+    row[3] = n0 * d0;
+    row[4] = n1 * d1;
+    row[5] = n2 * d2;
+    row[6] = n1 * d2 + n2 * d1;
+    row[7] = n0 * d2 + n2 * d0;
+    row[8] = n0 * d1 + n1 * d0;
+    for (let a = 0; a < 9; a++) {
+      const ra = row[a];
+      jtr[a] += ra * r;
+      for (let b = a; b < 9; b++) jtj[a * 9 + b] += ra * row[b];
+    }
+  }
+  for (let a = 0; a < 9; a++) for (let b = 0; b < a; b++) jtj[a * 9 + b] = jtj[b * 9 + a];
+  return { cost, count };
+}
+
+/** Columns of the full Jacobian that each parameter of a model moves. */
+const MODEL_COLUMNS: Record<MagModel, number[][]> = {
+  sphere: [[0], [1], [2], [3, 4, 5]],
+  axis: [[0], [1], [2], [3], [4], [5]],
+  full: [[0], [1], [2], [3], [4], [5], [6], [7], [8]],
+};
+
+/** Solve (H + λ·diag(H)) δ = −g for the model's parameters from the full-model sums; null if singular. */
+function dampedStep(model: MagModel, lambda: number): Float64Array | null {
+  const columns = MODEL_COLUMNS[model];
+  const np = columns.length;
+  const a = new Matrix(np, np);
+  const rhs = new Matrix(np, 1);
+  for (let i = 0; i < np; i++) {
+    let g = 0;
+    for (const c of columns[i]) g += jtr[c];
+    rhs.set(i, 0, -g);
+    for (let j = 0; j < np; j++) {
+      let h = 0;
+      for (const ci of columns[i]) for (const cj of columns[j]) h += jtj[ci * 9 + cj];
+      a.set(i, j, h);
+    }
+  }
+  for (let i = 0; i < np; i++) a.set(i, i, a.get(i, i) * (1 + lambda) + EPSILON);
+  const step = solve(a, rhs).to1DArray();
+  return step.every(Number.isFinite) ? Float64Array.from(step) : null;
+}
+
+interface IterationResult {
+  p: Float64Array;
+  cost: number;
+  count: number;
+  iterations: number;
+  converged: boolean;
+}
+
+function iterate(
+  series: Vec3Series,
+  norm: Normalisation,
+  model: MagModel,
+  start: Float64Array,
+  selection: SampleSelection,
+  curvatureSelection: SampleSelection | null,
+  maxIterations: number,
+  dampingStart: number,
+): IterationResult {
+  const linearise = (at: Float64Array): Sums => {
+    loadShape(model, at);
+    if (!curvatureSelection) return sumNormalEquations(series, norm, at, selection);
+    const sampled = sumNormalEquations(series, norm, at, curvatureSelection);
+    const full = sumGradient(series, norm, at, selection);
+    const ratio = full.count / Math.max(1, sampled.count);
+    for (let i = 0; i < 81; i++) jtj[i] *= ratio;
+    return full;
+  };
+  let p = start;
+  let current = linearise(p);
+  let lambda = dampingStart;
+  let iterations = 0;
+  let converged = false;
+  let linearisedAtCurrent = true;
+  while (iterations < maxIterations) {
+    iterations++;
+    if (!linearisedAtCurrent) {
+      current = linearise(p);
+      linearisedAtCurrent = true;
+    }
+    const step = dampedStep(model, lambda);
+    if (!step) break;
+    let largest = 1;
+    let stepSize = 0;
+    for (let i = 0; i < p.length; i++) {
+      largest = Math.max(largest, Math.abs(p[i]));
+      stepSize = Math.max(stepSize, Math.abs(step[i]));
+    }
+    // Parameters are O(1) in normalised coordinates: a step this small changes nothing measurable.
+    if (stepSize < 1e-10 * largest) {
+      converged = true;
+      break;
+    }
+    const trial = p.map((v, i) => v + step[i]);
+    loadShape(model, trial);
+    const next = sumCost(series, norm, trial, selection);
+    if (next.cost <= current.cost) {
+      const gain = current.cost - next.cost;
+      p = trial;
+      current = next;
+      linearisedAtCurrent = false;
+      lambda = Math.max(lambda / 10, 1e-12);
+      // A relative gain this small moves the parameters by ~1e-4 of their noise.
+      if (gain <= 1e-8 * current.cost || stepSize < 1e-8 * largest) {
+        converged = true;
+        break;
+      }
+    } else {
+      lambda *= 10;
+      if (lambda > 1e6) {
+        converged = true; // no descent direction left at this precision
+        break;
+      }
+    }
+  }
+  return { p, cost: current.cost, count: current.count, iterations, converged };
+}
+
+function toParameters(estimate: EllipsoidEstimate, norm: Normalisation): Float64Array {
+  const p = new Float64Array(PARAMETERS[estimate.model]);
+  const b = sub(estimate.hardIronOffset, norm.centre);
+  p[0] = b[0] / norm.scale;
+  p[1] = b[1] / norm.scale;
+  p[2] = b[2] / norm.scale;
+  // M = W · scale / R makes |M(u − b)| = 1 on the fitted ellipsoid.
+  const m = scaleMat(estimate.softIronMatrix, norm.scale / estimate.fieldStrength);
+  if (estimate.model === "sphere") {
+    p[3] = Math.cbrt(det3(m));
+  } else {
+    p[3] = m[0][0];
+    p[4] = m[1][1];
+    p[5] = m[2][2];
+    if (estimate.model === "full") {
+      p[6] = m[1][2];
+      p[7] = m[0][2];
+      p[8] = m[0][1];
+    }
+  }
+  return p;
+}
+
+function fromParameters(model: MagModel, p: Float64Array, norm: Normalisation): EllipsoidEstimate | null {
+  loadShape(model, p);
+  const [m00, m11, m22, m12, m02, m01] = shape;
+  const m: Mat3 = [
+    [m00, m01, m02],
+    [m01, m11, m12],
+    [m02, m12, m22],
+  ];
+  const det = det3(m);
+  if (!(det > 0)) return null;
+  const unit = Math.cbrt(det);
+  const offset: Vec3 = [norm.centre[0] + p[0] * norm.scale, norm.centre[1] + p[1] * norm.scale, norm.centre[2] + p[2] * norm.scale];
+  return { model, hardIronOffset: offset, softIronMatrix: scaleMat(m, 1 / unit), fieldStrength: norm.scale / unit };
+}
+
+/** Evenly strided subset of the selected samples, about `limit` long. */
+function stridedSubsample(series: Vec3Series, selection: SampleSelection, limit: number): Int32Array {
+  const { mask, indices } = selection;
+  const total = indices ? indices.length : series.x.length;
+  const chosen: number[] = [];
+  const stride = total / limit;
+  for (let t = 0; t < limit; t++) {
+    const i = indices ? indices[Math.floor(t * stride)] : Math.floor(t * stride);
+    if (!mask || mask[i] !== 0) chosen.push(i);
+  }
+  return Int32Array.from(chosen);
+}
+
+/**
+ * Refine an ellipsoid estimate (from the algebraic fit) by minimising the radial error of
+ * the selected samples; keeps the model of `initial`. Units: those of the input.
+ */
+export function refineEllipsoid(
+  series: Vec3Series,
+  initial: EllipsoidEstimate,
+  selection: SampleSelection = {},
+  options: RefineOptions = {},
+): RefineResult {
+  const maxIterations = options.maxIterations ?? 50;
+  const limit = options.subsampleLimit ?? 40_000;
+  const norm = normalisationOf(series, selection);
+  let p = toParameters(initial, norm);
+  let iterations = 0;
+  const total = selection.indices ? selection.indices.length : series.x.length;
+  let curvatureSelection: SampleSelection | null = null;
+  if (total > 2 * limit) {
+    curvatureSelection = { indices: stridedSubsample(series, selection, limit) };
+    const coarse = iterate(series, norm, initial.model, p, curvatureSelection, null, maxIterations, 1e-3);
+    p = coarse.p;
+    iterations += coarse.iterations;
+  }
+  // Small damping after a coarse stage: from its optimum these are Gauss–Newton steps.
+  const fine = iterate(series, norm, initial.model, p, selection, curvatureSelection, maxIterations, curvatureSelection ? 1e-9 : 1e-3);
+  iterations += fine.iterations;
+  const estimate = fromParameters(initial.model, fine.p, norm) ?? initial;
+  const relativeRms = fine.count > 0 ? Math.sqrt(fine.cost / fine.count) : 0;
+  return { estimate, residualRms: relativeRms * estimate.fieldStrength, iterations, converged: fine.converged };
+}
+
+/**
+ * Radial residual |W(x − b)| − R of every sample, input units, written into `out`
+ * (length N; samples outside any selection are computed too). Allocation-free.
+ */
+export function radialResiduals(series: Vec3Series, estimate: EllipsoidEstimate, out: Float64Array): Float64Array {
+  const { x, y, z } = series;
+  const [b0, b1, b2] = estimate.hardIronOffset;
+  const [[w00, w01, w02], [w10, w11, w12], [w20, w21, w22]] = estimate.softIronMatrix;
+  const R = estimate.fieldStrength;
+  for (let i = 0; i < x.length; i++) {
+    const d0 = x[i] - b0;
+    const d1 = y[i] - b1;
+    const d2 = z[i] - b2;
+    const v0 = w00 * d0 + w01 * d1 + w02 * d2;
+    const v1 = w10 * d0 + w11 * d1 + w12 * d2;
+    const v2 = w20 * d0 + w21 * d1 + w22 * d2;
+    out[i] = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2) - R;
+  }
+  return out;
+}
+
+/** RMS of the radial residuals over the selected samples, input units. */
+export function residualRmsOf(series: Vec3Series, estimate: EllipsoidEstimate, selection: SampleSelection = {}): number {
+  const residuals = radialResiduals(series, estimate, new Float64Array(series.x.length));
+  const { mask, indices } = selection;
+  const total = indices ? indices.length : residuals.length;
+  let sum = 0;
+  let count = 0;
+  for (let k = 0; k < total; k++) {
+    const i = indices ? indices[k] : k;
+    if (mask && mask[i] === 0) continue;
+    sum += residuals[i] * residuals[i];
+    count++;
+  }
+  return count > 0 ? Math.sqrt(sum / count) : 0;
+}

@@ -6,7 +6,7 @@ import { idle } from "@/lib/action-state";
 import { SelectField, TextField } from "@/components/ui/field";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { FormMessage, fieldError, fieldValue } from "@/components/ui/form-message";
-import { ROLE_LABELS, ROLE_SUMMARIES, type Role } from "@/lib/roles";
+import { ROLE_LABELS, type Role } from "@/lib/roles";
 
 export function InviteForm({ workspace, roles }: { workspace: string; roles: Role[] }) {
   const [state, action] = useActionState(inviteMemberAction, idle);
@@ -19,7 +19,8 @@ export function InviteForm({ workspace, roles }: { workspace: string; roles: Rol
         name="role"
         label="Role"
         defaultValue={fieldValue(state, "role", "technician")}
-        options={roles.map((r) => ({ value: r, label: `${ROLE_LABELS[r]} — ${ROLE_SUMMARIES[r]}` }))}
+        options={roles.map((r) => ({ value: r, label: ROLE_LABELS[r] }))}
+        hint="Owners manage people; technicians sign off; builders upload; instructors teach; students follow."
         error={fieldError(state, "role")}
       />
       <SubmitButton pendingLabel="Sending…">Send invitation</SubmitButton>

@@ -18,7 +18,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
   const mayRemove = can("member.remove");
   const invitations = mayInvite ? await listOpenInvitations(access.workspace.id) : [];
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
+    <div className="grid items-start gap-6 lg:grid-cols-[1fr_22rem]">
       <section className="card overflow-hidden" aria-labelledby="members-heading">
         <h2 id="members-heading" className="px-6 pt-6 text-lg font-semibold">
           People in {access.workspace.name}

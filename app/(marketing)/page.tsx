@@ -1,5 +1,6 @@
 import Link from "next/link";
-import { LogoMark, Wordmark } from "@/components/brand/logo-mark";
+import { Wordmark } from "@/components/brand/logo-mark";
+import { SphereIllustration } from "@/components/brand/sphere-illustration";
 import { getViewer } from "@/lib/guard";
 
 const CHECKS = [
@@ -56,7 +57,7 @@ export default async function HomePage() {
             </div>
           </div>
           <div className="flex justify-center">
-            <LogoMark className="h-64 w-64 drop-shadow-xl" title="A sphere with a loxodrome spiral" />
+            <SphereIllustration className="h-72 w-72 drop-shadow-xl" />
           </div>
         </section>
         <section className="border-y border-chart-rule bg-chart-sheet">

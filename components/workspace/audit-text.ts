@@ -12,6 +12,7 @@ const VERBS: Record<string, string> = {
 
 /** One readable line for an audit event. */
 export function describeAuditEvent(event: AuditEntry): string {
+  if (!event.actorName && (event.detail as { seeded?: boolean }).seeded) return "Demo workspace prepared";
   const who = event.actorName ?? "Someone";
   const verb = VERBS[event.action] ?? event.action;
   const detail = event.detail as Record<string, string | undefined>;

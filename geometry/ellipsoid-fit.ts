@@ -190,3 +190,15 @@ export function fitEllipsoidAlgebraic(series: Vec3Series, model: MagModel, selec
   if (!estimate) return { ok: false, detail: "the best-fitting quadric is not an ellipsoid" };
   return { ok: true, estimate };
 }
+
+/**
+ * Per-axis scale of the raw ellipsoid relative to the fitted sphere: its half-width along
+ * body axis i divided by R, which is √((W⁻²)_ii) because the raw samples are b + W⁻¹c with
+ * |c| = R. Equals 1/W_ii for the axis model and 1 for the sphere.
+ */
+export function ellipsoidScales(softIronMatrix: Mat3): Vec3 {
+  const inv = inverse3(softIronMatrix);
+  const column = (i: number) => Math.hypot(inv[0][i], inv[1][i], inv[2][i]);
+  // (W⁻²)_ii = |column i of W⁻¹|² since W⁻¹ is symmetric.
+  return [column(0), column(1), column(2)];
+}

@@ -1,0 +1,122 @@
+/**
+ * The three magnetometer models and the choice between them.
+ *
+ * - sphere: offset + radius (4 parameters) — no soft iron;
+ * - axis: offset + one scale per body axis (6) — soft iron aligned with the axes;
+ * - full: offset + symmetric 3x3 (9) — soft iron in any direction, cross-axis terms included.
+ *
+ * The automatic choice uses the Bayesian information criterion (Schwarz, "Estimating the
+ * dimension of a model", Annals of Statistics 1978): BIC = n·ln(RSS/n) + k·ln(n) for n
+ * samples, k parameters and residual sum of squares RSS (Gaussian errors). It was preferred
+ * to an F-test because it needs no significance level and the nested models are compared
+ * in one pass; its ln(n) penalty per parameter keeps a noise-only improvement from
+ * selecting a bigger model, while a real soft-iron distortion lowers RSS by far more.
+ * Caveat: consecutive samples are correlated, so n overstates the independent information
+ * and BIC leans towards the bigger model when the distortion is tiny; that costs little,
+ * since the bigger model contains the smaller one.
+ */
+import { MODEL_PARAMETER_COUNT, fitEllipsoidAlgebraic, type EllipsoidEstimate } from "./ellipsoid-fit";
+import { refineEllipsoid, type RefineOptions } from "./ellipsoid-refine";
+import type { MagModel, MagModelCandidate, MagModelChoice } from "./magnetometer-types";
+import { selectedCount, type SampleSelection } from "./normal-equations";
+import type { Vec3Series } from "./types";
+
+export const MAG_MODELS: MagModel[] = ["sphere", "axis", "full"];
+
+export interface ModelFit {
+  estimate: EllipsoidEstimate;
+  residualRms: number;
+  parameterCount: number;
+  samples: number;
+  /** BIC; lower is better. */
+  score: number;
+}
+
+export type ModelFitResult = { ok: true; fit: ModelFit } | { ok: false; detail: string };
+
+/** Bayesian information criterion for n Gaussian residuals with sum of squares rss and k parameters. */
+export function bayesianInformationCriterion(rss: number, n: number, k: number): number {
+  // A perfect fit (rss = 0) would give −∞; a floor keeps scores comparable and finite.
+  const floor = Number.MIN_VALUE * n;
+  return n * Math.log(Math.max(rss, floor) / n) + k * Math.log(n);
+}
+
+/**
+ * Fit one model: algebraic fit for a start, then geometric refinement. Input units are
+ * kept throughout.
+ */
+export function fitMagModel(
+  series: Vec3Series,
+  model: MagModel,
+  selection: SampleSelection = {},
+  refine: RefineOptions = {},
+): ModelFitResult {
+  const algebraic = fitEllipsoidAlgebraic(series, model, selection);
+  if (!algebraic.ok) return algebraic;
+  const refined = refineEllipsoid(series, algebraic.estimate, selection, refine);
+  const samples = selectedCount(series, selection);
+  const parameterCount = MODEL_PARAMETER_COUNT[model];
+  const rss = refined.residualRms * refined.residualRms * samples;
+  return {
+    ok: true,
+    fit: {
+      estimate: refined.estimate,
+      residualRms: refined.residualRms,
+      parameterCount,
+      samples,
+      score: bayesianInformationCriterion(rss, samples, parameterCount),
+    },
+  };
+}
+
+export interface ModelChoice {
+  chosen: ModelFit;
+  candidates: ModelFit[];
+  reason: string;
+}
+
+export type ModelChoiceResult = { ok: true; choice: ModelChoice } | { ok: false; detail: string };
+
+const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(2));
+
+export function toCandidate(fit: ModelFit): MagModelCandidate {
+  return { model: fit.estimate.model, residualRms: fit.residualRms, parameterCount: fit.parameterCount, score: fit.score };
+}
+
+/**
+ * Fit every model on the same samples and pick one: the forced model when `choice` names
+ * one, otherwise the lowest BIC. The reason is a sentence for the report.
+ */
+export function chooseMagModel(series: Vec3Series, choice: MagModelChoice, selection: SampleSelection = {}): ModelChoiceResult {
+  const candidates: ModelFit[] = [];
+  const failures: string[] = [];
+  for (const model of MAG_MODELS) {
+    const result = fitMagModel(series, model, selection);
+    if (result.ok) candidates.push(result.fit);
+    else failures.push(`${model}: ${result.detail}`);
+  }
+  if (candidates.length === 0) return { ok: false, detail: failures.join("; ") };
+  const summary = candidates.map((c) => `${c.estimate.model} ${fmt(c.residualRms)}`).join(", ");
+  if (choice !== "auto") {
+    const forced = candidates.find((c) => c.estimate.model === choice);
+    if (!forced) return { ok: false, detail: failures.find((f) => f.startsWith(choice)) ?? `the ${choice} model could not be fitted` };
+    return { ok: true, choice: { chosen: forced, candidates, reason: `The ${choice} model was requested. Residual RMS per model: ${summary}.` } };
+  }
+  const best = candidates.reduce((a, b) => (b.score < a.score ? b : a));
+  const simpler = candidates.filter((c) => c.parameterCount < best.parameterCount);
+  const bigger = candidates.filter((c) => c.parameterCount > best.parameterCount);
+  let why: string;
+  if (simpler.length === 0) {
+    why = `the extra parameters of ${bigger.map((c) => c.estimate.model).join(" and ")} did not lower the residual enough to pay for themselves`;
+  } else if (bigger.length === 0) {
+    why = `its lower residual outweighs the penalty for its extra parameters`;
+  } else {
+    why = `it pays for its parameters over ${simpler.map((c) => c.estimate.model).join(" and ")}, and ${bigger
+      .map((c) => c.estimate.model)
+      .join(" and ")} adds parameters without enough gain`;
+  }
+  const reason =
+    `Chosen by the Bayesian information criterion (n·ln(RSS/n) + k·ln n), which weighs the residual against the number of ` +
+    `parameters without a significance level to pick: ${best.estimate.model} scores lowest because ${why}. Residual RMS per model: ${summary}.`;
+  return { ok: true, choice: { chosen: best, candidates, reason } };
+}

@@ -17,7 +17,8 @@ import type {
 } from "./magnetometer-types";
 import type { ThresholdTable } from "./thresholds";
 import type { Check, Mat3 } from "./types";
-import { DEG, mulMat, norm, transpose3 } from "./vector";
+import { angleBetweenRotationsDeg } from "./rotation";
+import { norm } from "./vector";
 
 /** The cautions every capture that may power motors carries. */
 export const MOTOR_SAFETY_CAUTION =
@@ -323,21 +324,14 @@ export function dipCheck(
   });
 }
 
-/** Angle of the rotation taking `a` to `b`, degrees. */
-export function rotationAngleBetweenDeg(a: Mat3, b: Mat3): number {
-  const r = mulMat(a, transpose3(b));
-  const cosine = (r[0][0] + r[1][1] + r[2][2] - 1) / 2;
-  return Math.acos(Math.max(-1, Math.min(1, cosine))) / DEG;
-}
-
 export function mountingCheck(sensor: string, mounting: MountingComparison, thresholds: ThresholdTable): Check {
   const title = `Mounting rotation against ${mounting.reference}`;
   const { result } = mounting;
   if (!result.determined) {
     return skippedCheck(thresholds, "mag.mounting", title, sensor, "The capture did not turn the vehicle enough to fix the rotation between the compasses.", "Turn the vehicle through every attitude.");
   }
-  const fromDeclared = rotationAngleBetweenDeg(result.rotation, mounting.expected);
-  const matchesDeclared = rotationAngleBetweenDeg(result.nearest.matrix, mounting.expected) < 1;
+  const fromDeclared = angleBetweenRotationsDeg(result.rotation, mounting.expected);
+  const matchesDeclared = angleBetweenRotationsDeg(result.nearest.matrix, mounting.expected) < 1;
   return gradedCheck(thresholds, {
     id: "mag.mounting",
     title,

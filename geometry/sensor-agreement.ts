@@ -9,7 +9,8 @@
  */
 import type { StillPeriod } from "./still-periods";
 import type { Vec3, Vec3Series } from "./types";
-import { angleBetweenDeg, EPSILON } from "./vector";
+import type { AffineCorrection } from "./dip-check";
+import { angleBetweenDeg, EPSILON, mulMatVec } from "./vector";
 
 export interface AccelerometerAgreement {
   sensors: [string, string];
@@ -33,7 +34,7 @@ export interface GyroscopeAgreement {
   relativeDifferencePercent: number;
 }
 
-function periodMean(series: Vec3Series, period: StillPeriod): Vec3 {
+function periodMean(series: Vec3Series, period: StillPeriod, correction?: AffineCorrection): Vec3 {
   const mean: Vec3 = [0, 0, 0];
   const { x, y, z } = series;
   for (let i = period.startIndex; i < period.endIndex; i++) {
@@ -42,15 +43,22 @@ function periodMean(series: Vec3Series, period: StillPeriod): Vec3 {
     mean[2] += z[i];
   }
   const count = period.endIndex - period.startIndex;
-  return [mean[0] / count, mean[1] / count, mean[2] / count];
+  const raw: Vec3 = [mean[0] / count, mean[1] / count, mean[2] / count];
+  // Affine corrections commute with the mean.
+  if (!correction) return raw;
+  return mulMatVec(correction.matrix, [raw[0] - correction.offset[0], raw[1] - correction.offset[1], raw[2] - correction.offset[2]]);
 }
 
-/** Compares two accelerometers over the still periods. Null when there is no period. */
+/**
+ * Compares two accelerometers over the still periods, each corrected by its calibration
+ * when one is given. Null when there is no period.
+ */
 export function compareAccelerometers(
   names: [string, string],
   a: Vec3Series,
   b: Vec3Series,
   periods: StillPeriod[],
+  corrections: { a?: AffineCorrection; b?: AffineCorrection } = {},
 ): AccelerometerAgreement | null {
   const usable = periods.filter((period) => period.endIndex > period.startIndex);
   if (usable.length === 0) return null;
@@ -58,8 +66,8 @@ export function compareAccelerometers(
   let squares = 0;
   let maxAngleDeg = 0;
   for (const period of usable) {
-    const ma = periodMean(a, period);
-    const mb = periodMean(b, period);
+    const ma = periodMean(a, period, corrections.a);
+    const mb = periodMean(b, period, corrections.b);
     const d: Vec3 = [mb[0] - ma[0], mb[1] - ma[1], mb[2] - ma[2]];
     for (let k = 0; k < 3; k++) sum[k] += d[k];
     squares += d[0] * d[0] + d[1] * d[1] + d[2] * d[2];

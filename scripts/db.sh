@@ -16,7 +16,7 @@ ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 # run with its own temporary data folder still shares the one cluster.
 PGDATA="${LOXODROME_PGDATA:-$ROOT/.data/postgres}"
 DATA_DIR="$(dirname "$PGDATA")"
-PGPORT="${LOXODROME_PG_PORT:-54329}"
+PORT_FILE="$PGDATA.port"
 PGHOST=127.0.0.1
 DB_NAME="${LOXODROME_DB_NAME:-loxodrome}"
 DB_USER=loxodrome
@@ -69,6 +69,24 @@ is_running() {
   [ -f "$PGDATA/postmaster.pid" ] && as_owner "$PG_CTL" -D "$PGDATA" status >/dev/null 2>&1
 }
 
+port_in_use() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+
+# The cluster keeps the port it was first given (recorded beside it), so a second checkout
+# on the same machine gets a cluster of its own on the next free port instead of a clash.
+choose_port() {
+  if [ -n "${LOXODROME_PG_PORT:-}" ]; then PGPORT="$LOXODROME_PG_PORT"; return; fi
+  if [ -f "$PORT_FILE" ]; then PGPORT="$(cat "$PORT_FILE")"; return; fi
+  if [ -f "$PGDATA/postmaster.pid" ]; then
+    PGPORT="$(sed -n 4p "$PGDATA/postmaster.pid")"
+    echo "$PGPORT" > "$PORT_FILE"
+    return
+  fi
+  PGPORT=54329
+  while port_in_use "$PGPORT"; do PGPORT=$((PGPORT + 1)); done
+  mkdir -p "$(dirname "$PORT_FILE")"
+  echo "$PGPORT" > "$PORT_FILE"
+}
+
 ensure_cluster() {
   ensure_postgres_installed
   INITDB="$(find_bin initdb)"; PG_CTL="$(find_bin pg_ctl)"
@@ -106,6 +124,8 @@ ensure_database() {
     psql_admin -c "CREATE DATABASE \"$name\" OWNER $DB_USER"
   fi
 }
+
+choose_port
 
 case "$CMD" in
   start)

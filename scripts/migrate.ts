@@ -1,8 +1,11 @@
 /** Apply pending migrations: `npm run migrate` (or `npm run migrate -- down` to undo the last). */
-import { closeDb, db } from "@/lib/db";
-import { migrator } from "@/lib/migrator";
+import { ensureDatabase } from "./services";
 
 async function main() {
+  process.env.DATABASE_URL = ensureDatabase();
+  // Imported after DATABASE_URL is settled: lib/env reads it once.
+  const { closeDb, db } = await import("@/lib/db");
+  const { migrator } = await import("@/lib/migrator");
   const umzug = migrator(db().sequelize);
   if (process.argv[2] === "down") {
     const undone = await umzug.down();

@@ -1,13 +1,16 @@
 /** Seed the demo workspaces: `npm run seed`. Idempotent. */
-import { closeDb } from "@/lib/db";
-import { demoCredentialsTable, seedDemo } from "@/lib/seed/seed-demo";
+import { ensureDatabase } from "./services";
 
-seedDemo((line) => console.log(`[seed] ${line}`))
-  .then(async () => {
-    console.log(`[seed] demo sign-ins:\n${demoCredentialsTable()}`);
-    await closeDb();
-  })
-  .catch((error) => {
-    console.error("[seed] failed:", error);
-    process.exit(1);
-  });
+async function main() {
+  process.env.DATABASE_URL = ensureDatabase();
+  const { closeDb } = await import("@/lib/db");
+  const { demoCredentialsTable, seedDemo } = await import("@/lib/seed/seed-demo");
+  await seedDemo((line) => console.log(`[seed] ${line}`));
+  console.log(`[seed] demo sign-ins:\n${demoCredentialsTable()}`);
+  await closeDb();
+}
+
+main().catch((error) => {
+  console.error("[seed] failed:", error);
+  process.exit(1);
+});

@@ -68,7 +68,7 @@ export interface AccelerometerPose {
   meanSpecificForce: Vec3;
   /** Angle of the raw mean's down direction from the face's axis, degrees (before calibration). */
   angleFromAxisDeg: number;
-  /** RMS angle between 0.2 s block means and the pose mean, degrees: hand wobble, with sensor noise averaged out. */
+  /** RMS angle between 0.1 s block means and the pose mean, degrees: hand wobble, with sensor noise averaged out. */
   wobbleDeg: number;
   /** Standard deviation of the reading vector over the pose (noise included), same units as the reading. */
   wobbleStd: number;
@@ -79,7 +79,7 @@ export interface PoseGroupingOptions {
   mergeAngleDeg?: number;
   /** …and closer than this in time, seconds; default 3. */
   mergeGapS?: number;
-  /** Length of the blocks averaged before measuring wobble, seconds; default 0.2. */
+  /** Length of the blocks averaged before measuring wobble, seconds; default 0.1 (short enough to keep a 3 Hz wobble). */
   wobbleBlockS?: number;
 }
 
@@ -142,7 +142,7 @@ export function groupPoses(
   const mergeAngleDeg = options.mergeAngleDeg ?? 10;
   const mergeGapS = options.mergeGapS ?? 3;
   const step = medianTimeStep(timeS);
-  const blockSamples = Math.max(1, Math.round((options.wobbleBlockS ?? 0.2) / (step > 0 ? step : 1)));
+  const blockSamples = Math.max(1, Math.round((options.wobbleBlockS ?? 0.1) / (step > 0 ? step : 1)));
 
   // Each pose is a list of still periods.
   const groups: StillPeriod[][] = [];

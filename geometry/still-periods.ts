@@ -8,16 +8,22 @@
  * the accelerometer-still samples) stays below another. The rate test uses the RMS, not the
  * spread, because a steady turn about the vertical leaves gravity and the rate's spread
  * unchanged. Runs of still samples shorter than a minimum duration
- * are dropped, and a run is split where the time stamps jump (a logging gap).
+ * are dropped, and a run is split where the time stamps jump (a logging gap). Each run is
+ * trimmed by half a window at each end that borders motion: those samples passed only
+ * because their window still straddled the end of a move. A slow, steady turn can pass the
+ * variance tests, so a run is also split where its direction (over blocks of half a window)
+ * has drifted more than 5° from where the run began.
  *
  * Default thresholds (common practice for hand-held calibration with MEMS sensors):
  * - window 0.5 s: long enough to average sensor noise, short enough to resolve the moves
  *   between holds;
- * - acceleration 0.3 m/s² (≈ 0.03 g): a few times the noise of a typical MEMS accelerometer,
- *   well below the change a turn of a few degrees per second makes to gravity's components;
- * - angular rate 0.1 rad/s RMS (≈ 6 °/s): a hand slowly turning a vehicle exceeds it;
- * - minimum duration 1 s.
- * A hold that passes still may still wobble; how much is judged per pose afterwards.
+ * - acceleration 0.6 m/s² (≈ 0.06 g) and angular rate 0.35 rad/s (≈ 20 °/s): a hand
+ *   turning a vehicle from one face to the next exceeds both several times over, while a
+ *   hold that wobbles by up to about a degree stays inside them — so that its wobble can be
+ *   measured and reported on the pose, rather than the hold being lost;
+ * - minimum duration 1 s; largest drift of direction within a period 5°.
+ * Everything computed from these periods uses means (bias, pose direction, dip) or
+ * high-passed spreads (gyro noise), which a small wobble does not disturb.
  *
  * Cost: one pass over the samples with running sums; memory: one byte per sample.
  */
@@ -36,21 +42,24 @@ export interface StillPeriod {
 export interface StillPeriodOptions {
   /** Width of the moving window, seconds; default 0.5. */
   windowS?: number;
-  /** Largest window standard deviation of the acceleration vector, m/s²; default 0.3. */
+  /** Largest window standard deviation of the acceleration vector, m/s²; default 0.6. */
   accelStdThresholdMps2?: number;
-  /** Largest window RMS of the bias-free angular-rate vector, rad/s; default 0.1. */
+  /** Largest window RMS of the bias-free angular-rate vector, rad/s; default 0.35. */
   gyroRateThresholdRadPerS?: number;
   /** Shortest period kept, seconds; default 1. */
   minDurationS?: number;
+  /** Largest change of the reading's direction within one period, degrees; default 5. */
+  maxDriftDeg?: number;
   /** Angular rate samples aligned with the acceleration, rad/s. */
   gyro?: Vec3Series;
 }
 
 export const STILL_PERIOD_DEFAULTS = {
   windowS: 0.5,
-  accelStdThresholdMps2: 0.3,
-  gyroRateThresholdRadPerS: 0.1,
+  accelStdThresholdMps2: 0.6,
+  gyroRateThresholdRadPerS: 0.35,
   minDurationS: 1,
+  maxDriftDeg: 5,
 } as const;
 
 /**
@@ -156,6 +165,7 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
   if (n < 3) return [];
   const windowS = options.windowS ?? STILL_PERIOD_DEFAULTS.windowS;
   const minDurationS = options.minDurationS ?? STILL_PERIOD_DEFAULTS.minDurationS;
+  const maxDriftDeg = options.maxDriftDeg ?? STILL_PERIOD_DEFAULTS.maxDriftDeg;
   const step = medianTimeStep(timeS);
   if (!(step > 0)) return [];
   const halfWindow = Math.max(1, Math.round(windowS / step / 2));
@@ -172,17 +182,52 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
   const periods: StillPeriod[] = [];
   let start = -1;
   const close = (endIndex: number) => {
-    const startTimeS = timeS[start];
-    const endTimeS = timeS[endIndex - 1];
-    if (endTimeS - startTimeS >= minDurationS) {
-      periods.push({ startIndex: start, endIndex, startTimeS, endTimeS, durationS: endTimeS - startTimeS });
+    const first = start > 0 ? start + halfWindow : start;
+    const last = endIndex < n ? endIndex - halfWindow : endIndex;
+    if (last - first >= 2) {
+      const startTimeS = timeS[first];
+      const endTimeS = timeS[last - 1];
+      if (endTimeS - startTimeS >= minDurationS) {
+        periods.push({ startIndex: first, endIndex: last, startTimeS, endTimeS, durationS: endTimeS - startTimeS });
+      }
     }
     start = -1;
   };
+  // Drift test on block means of half a window: a run whose direction wanders away from
+  // where it began is a slow move, split where it has wandered too far.
+  const blockSize = halfWindow;
+  const cosLimit = Math.cos((maxDriftDeg * Math.PI) / 180);
+  let anchorX = 0, anchorY = 0, anchorZ = 0, hasAnchor = false;
+  let blockStart = 0, bx = 0, by = 0, bz = 0;
   for (let i = 0; i < n; i++) {
     if (mask[i] === 1) {
       if (start >= 0 && timeS[i] - timeS[i - 1] > gapS) close(i);
-      if (start < 0) start = i;
+      if (start < 0) {
+        start = i;
+        hasAnchor = false;
+        blockStart = i;
+        bx = by = bz = 0;
+      }
+      bx += accel.x[i];
+      by += accel.y[i];
+      bz += accel.z[i];
+      if (i - blockStart + 1 === blockSize) {
+        const length = Math.hypot(bx, by, bz);
+        if (!hasAnchor) {
+          anchorX = bx / length;
+          anchorY = by / length;
+          anchorZ = bz / length;
+          hasAnchor = true;
+        } else if ((anchorX * bx + anchorY * by + anchorZ * bz) / length < cosLimit) {
+          close(blockStart);
+          start = blockStart;
+          anchorX = bx / length;
+          anchorY = by / length;
+          anchorZ = bz / length;
+        }
+        blockStart = i + 1;
+        bx = by = bz = 0;
+      }
     } else if (start >= 0) close(i);
   }
   if (start >= 0) close(n);

@@ -117,7 +117,7 @@ export const THRESHOLDS = {
     failAbove: 1.5,
     unit: "° RMS",
     source: "common practice",
-    basis: "a hold braced against a table moves a tenth of a degree; a hand-held wobble of a degree or more shifts the pose's mean",
+    basis: "a hold resting on a table moves about a tenth of a degree; a hand-held wobble of a degree or more shifts the pose's mean",
   },
   "accel.gravity": {
     warnAbove: 3,

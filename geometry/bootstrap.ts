@@ -12,7 +12,7 @@
  * noise only; systematic errors (a nearby steel object, partial coverage) widen the true
  * uncertainty beyond them.
  */
-import { ellipsoidScales } from "./ellipsoid-fit";
+import { ellipsoidScales, type EllipsoidEstimate } from "./ellipsoid-fit";
 import { fitMagModel } from "./magnetometer-models";
 import type { MagModel } from "./magnetometer-types";
 import { createRandom } from "./random";
@@ -59,14 +59,15 @@ const collapsed = (v: Vec3): [Interval95, Interval95, Interval95] => [
 
 /**
  * Bootstrap intervals around a full-sample fit (`offset`, `scales`) of `model` to the
- * samples with inliers[i] = 1. Intervals collapse to the estimate when fewer than 20
- * resamples succeed.
+ * samples with inliers[i] = 1. Each refit starts from `start` (the full-sample estimate)
+ * when given, which skips the algebraic step. Intervals collapse to the estimate when fewer
+ * than 20 resamples succeed.
  */
 export function bootstrapIntervals(
   series: Vec3Series,
   model: MagModel,
   inliers: Uint8Array,
-  estimate: { offset: Vec3; scales: Vec3 },
+  estimate: { offset: Vec3; scales: Vec3; start?: EllipsoidEstimate },
   options: BootstrapOptions = {},
 ): BootstrapResult {
   const resamples = options.resamples ?? 200;
@@ -81,7 +82,7 @@ export function bootstrapIntervals(
   let done = 0;
   for (let r = 0; r < resamples && m > 0; r++) {
     for (let k = 0; k < m; k++) indices[k] = kept[random.integer(n)];
-    const refit = fitMagModel(series, model, { indices }, { maxIterations: 20 });
+    const refit = fitMagModel(series, model, { indices }, { maxIterations: 20 }, estimate.start);
     if (!refit.ok) continue;
     const s = ellipsoidScales(refit.fit.estimate.softIronMatrix);
     for (let a = 0; a < 3; a++) {

@@ -202,3 +202,40 @@ export function ellipsoidScales(softIronMatrix: Mat3): Vec3 {
   // (W⁻²)_ii = |column i of W⁻¹|² since W⁻¹ is symmetric.
   return [column(0), column(1), column(2)];
 }
+
+/**
+ * Radial residual |W(x − b)| − R of every sample, input units, written into `out`
+ * (length N; samples outside any selection are computed too). Allocation-free.
+ */
+export function radialResiduals(series: Vec3Series, estimate: EllipsoidEstimate, out: Float64Array): Float64Array {
+  const { x, y, z } = series;
+  const [b0, b1, b2] = estimate.hardIronOffset;
+  const [[w00, w01, w02], [w10, w11, w12], [w20, w21, w22]] = estimate.softIronMatrix;
+  const R = estimate.fieldStrength;
+  for (let i = 0; i < x.length; i++) {
+    const d0 = x[i] - b0;
+    const d1 = y[i] - b1;
+    const d2 = z[i] - b2;
+    const v0 = w00 * d0 + w01 * d1 + w02 * d2;
+    const v1 = w10 * d0 + w11 * d1 + w12 * d2;
+    const v2 = w20 * d0 + w21 * d1 + w22 * d2;
+    out[i] = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2) - R;
+  }
+  return out;
+}
+
+/** RMS of the radial residuals over the selected samples, input units. */
+export function residualRmsOf(series: Vec3Series, estimate: EllipsoidEstimate, selection: SampleSelection = {}): number {
+  const residuals = radialResiduals(series, estimate, new Float64Array(series.x.length));
+  const { mask, indices } = selection;
+  const total = indices ? indices.length : residuals.length;
+  let sum = 0;
+  let count = 0;
+  for (let k = 0; k < total; k++) {
+    const i = indices ? indices[k] : k;
+    if (mask && mask[i] === 0) continue;
+    sum += residuals[i] * residuals[i];
+    count++;
+  }
+  return count > 0 ? Math.sqrt(sum / count) : 0;
+}

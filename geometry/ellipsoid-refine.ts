@@ -19,7 +19,6 @@
  * whose curvature is off by about 1/√(subsample size), so it still converges in a few steps
  * while the per-sample work stays at the nine gradient sums.
  */
-import { Matrix, solve } from "ml-matrix";
 import type { EllipsoidEstimate } from "./ellipsoid-fit";
 import type { MagModel } from "./magnetometer-types";
 import { normalisationOf, type Normalisation, type SampleSelection } from "./normal-equations";
@@ -46,7 +45,6 @@ const PARAMETERS: Record<MagModel, number> = { sphere: 4, axis: 6, full: 9 };
 /** Normal equations of the full 9-parameter model: order b0 b1 b2 m00 m11 m22 m12 m02 m01. */
 const jtj = new Float64Array(81);
 const jtr = new Float64Array(9);
-const row = new Float64Array(9);
 /** The symmetric matrix M of the current parameters, as m00 m11 m22 m12 m02 m01. */
 const shape = new Float64Array(6);
 
@@ -94,14 +92,17 @@ function sumCost(series: Vec3Series, norm: Normalisation, p: Float64Array, selec
 }
 
 /**
- * Cost and gradient Jᵀr of the full model (into `jtr`). Sums live in locals: this loop runs
- * over every sample of long captures. Allocation-free.
+ * Cost and gradient Jᵀr of the full model (into `jtr`), and the curvature JᵀJ (into `jtj`)
+ * when asked. Every sum lives in a local (the 45 of the upper triangle of JᵀJ written out)
+ * because this is the innermost loop of the fit and of every bootstrap refit; locals stay in
+ * registers where typed-array updates would not. Allocation-free.
  */
-function sumGradient(
+function sumNormalEquations(
   series: Vec3Series,
   norm: Normalisation,
   p: Float64Array,
   selection: SampleSelection,
+  withCurvature: boolean,
 ): Sums {
   const { x, y, z } = series;
   const { mask, indices } = selection;
@@ -112,6 +113,16 @@ function sumGradient(
   const cz = norm.centre[2] + p[2] * norm.scale;
   const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
   let g0 = 0, g1 = 0, g2 = 0, g3 = 0, g4 = 0, g5 = 0, g6 = 0, g7 = 0, g8 = 0;
+  // prettier-ignore
+  let h00 = 0, h01 = 0, h02 = 0, h03 = 0, h04 = 0, h05 = 0, h06 = 0, h07 = 0, h08 = 0,
+    h11 = 0, h12 = 0, h13 = 0, h14 = 0, h15 = 0, h16 = 0, h17 = 0, h18 = 0,
+    h22 = 0, h23 = 0, h24 = 0, h25 = 0, h26 = 0, h27 = 0, h28 = 0,
+    h33 = 0, h34 = 0, h35 = 0, h36 = 0, h37 = 0, h38 = 0,
+    h44 = 0, h45 = 0, h46 = 0, h47 = 0, h48 = 0,
+    h55 = 0, h56 = 0, h57 = 0, h58 = 0,
+    h66 = 0, h67 = 0, h68 = 0,
+    h77 = 0, h78 = 0,
+    h88 = 0;
   let cost = 0;
   let count = 0;
   for (let k = 0; k < total; k++) {
@@ -150,6 +161,19 @@ function sumGradient(
     g6 += j6 * r;
     g7 += j7 * r;
     g8 += j8 * r;
+    if (!withCurvature) continue;
+    // prettier-ignore
+    {
+      h00 += j0 * j0; h01 += j0 * j1; h02 += j0 * j2; h03 += j0 * j3; h04 += j0 * j4; h05 += j0 * j5; h06 += j0 * j6; h07 += j0 * j7; h08 += j0 * j8;
+      h11 += j1 * j1; h12 += j1 * j2; h13 += j1 * j3; h14 += j1 * j4; h15 += j1 * j5; h16 += j1 * j6; h17 += j1 * j7; h18 += j1 * j8;
+      h22 += j2 * j2; h23 += j2 * j3; h24 += j2 * j4; h25 += j2 * j5; h26 += j2 * j6; h27 += j2 * j7; h28 += j2 * j8;
+      h33 += j3 * j3; h34 += j3 * j4; h35 += j3 * j5; h36 += j3 * j6; h37 += j3 * j7; h38 += j3 * j8;
+      h44 += j4 * j4; h45 += j4 * j5; h46 += j4 * j6; h47 += j4 * j7; h48 += j4 * j8;
+      h55 += j5 * j5; h56 += j5 * j6; h57 += j5 * j7; h58 += j5 * j8;
+      h66 += j6 * j6; h67 += j6 * j7; h68 += j6 * j8;
+      h77 += j7 * j7; h78 += j7 * j8;
+      h88 += j8 * j8;
+    }
   }
   jtr[0] = g0;
   jtr[1] = g1;
@@ -160,59 +184,20 @@ function sumGradient(
   jtr[6] = g6;
   jtr[7] = g7;
   jtr[8] = g8;
-  return { cost, count };
-}
-
-/**
- * Cost, gradient Jᵀr and curvature JᵀJ of the full model (into `jtr`, `jtj`). Runs only on
- * subsamples and short captures, so the 45 curvature sums stay in a scratch array.
- */
-function sumNormalEquations(series: Vec3Series, norm: Normalisation, p: Float64Array, selection: SampleSelection): Sums {
-  const { x, y, z } = series;
-  const { mask, indices } = selection;
-  const total = indices ? indices.length : x.length;
-  const inv = 1 / norm.scale;
-  const cx = norm.centre[0] + p[0] * norm.scale;
-  const cy = norm.centre[1] + p[1] * norm.scale;
-  const cz = norm.centre[2] + p[2] * norm.scale;
-  const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
-  let cost = 0;
-  let count = 0;
-  jtj.fill(0);
-  jtr.fill(0);
-  for (let k = 0; k < total; k++) {
-    const i = indices ? indices[k] : k;
-    if (mask && mask[i] === 0) continue;
-    const d0 = (x[i] - cx) * inv;
-    const d1 = (y[i] - cy) * inv;
-    const d2 = (z[i] - cz) * inv;
-    const v0 = m00 * d0 + m01 * d1 + m02 * d2;
-    const v1 = m01 * d0 + m11 * d1 + m12 * d2;
-    const v2 = m02 * d0 + m12 * d1 + m22 * d2;
-    const rho = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2);
-    const r = rho - 1;
-    cost += r * r;
-    count++;
-    if (rho < EPSILON) continue;
-    const n0 = v0 / rho;
-    const n1 = v1 / rho;
-    const n2 = v2 / rho;
-    row[0] = -(m00 * n0 + m01 * n1 + m02 * n2);
-    row[1] = -(m01 * n0 + m11 * n1 + m12 * n2);
-    row[2] = -(m02 * n0 + m12 * n1 + m22 * n2);
-    row[3] = n0 * d0;
-    row[4] = n1 * d1;
-    row[5] = n2 * d2;
-    row[6] = n1 * d2 + n2 * d1;
-    row[7] = n0 * d2 + n2 * d0;
-    row[8] = n0 * d1 + n1 * d0;
-    for (let a = 0; a < 9; a++) {
-      const ra = row[a];
-      jtr[a] += ra * r;
-      for (let b = a; b < 9; b++) jtj[a * 9 + b] += ra * row[b];
+  if (withCurvature) {
+    // prettier-ignore
+    {
+      jtj[0] = h00; jtj[1] = jtj[9] = h01; jtj[2] = jtj[18] = h02; jtj[3] = jtj[27] = h03; jtj[4] = jtj[36] = h04; jtj[5] = jtj[45] = h05; jtj[6] = jtj[54] = h06; jtj[7] = jtj[63] = h07; jtj[8] = jtj[72] = h08;
+      jtj[10] = h11; jtj[11] = jtj[19] = h12; jtj[12] = jtj[28] = h13; jtj[13] = jtj[37] = h14; jtj[14] = jtj[46] = h15; jtj[15] = jtj[55] = h16; jtj[16] = jtj[64] = h17; jtj[17] = jtj[73] = h18;
+      jtj[20] = h22; jtj[21] = jtj[29] = h23; jtj[22] = jtj[38] = h24; jtj[23] = jtj[47] = h25; jtj[24] = jtj[56] = h26; jtj[25] = jtj[65] = h27; jtj[26] = jtj[74] = h28;
+      jtj[30] = h33; jtj[31] = jtj[39] = h34; jtj[32] = jtj[48] = h35; jtj[33] = jtj[57] = h36; jtj[34] = jtj[66] = h37; jtj[35] = jtj[75] = h38;
+      jtj[40] = h44; jtj[41] = jtj[49] = h45; jtj[42] = jtj[58] = h46; jtj[43] = jtj[67] = h47; jtj[44] = jtj[76] = h48;
+      jtj[50] = h55; jtj[51] = jtj[59] = h56; jtj[52] = jtj[68] = h57; jtj[53] = jtj[77] = h58;
+      jtj[60] = h66; jtj[61] = jtj[69] = h67; jtj[62] = jtj[78] = h68;
+      jtj[70] = h77; jtj[71] = jtj[79] = h78;
+      jtj[80] = h88;
     }
   }
-  for (let a = 0; a < 9; a++) for (let b = 0; b < a; b++) jtj[a * 9 + b] = jtj[b * 9 + a];
   return { cost, count };
 }
 
@@ -223,25 +208,53 @@ const MODEL_COLUMNS: Record<MagModel, number[][]> = {
   full: [[0], [1], [2], [3], [4], [5], [6], [7], [8]],
 };
 
-/** Solve (H + λ·diag(H)) δ = −g for the model's parameters from the full-model sums; null if singular. */
+const system = new Float64Array(81);
+const rhs = new Float64Array(9);
+
+/**
+ * Solve (H + λ·diag(H)) δ = −g for the model's parameters from the full-model sums, by
+ * Cholesky factorisation in place (the damped matrix is symmetric positive definite);
+ * null when it is not.
+ */
 function dampedStep(model: MagModel, lambda: number): Float64Array | null {
   const columns = MODEL_COLUMNS[model];
   const np = columns.length;
-  const a = new Matrix(np, np);
-  const rhs = new Matrix(np, 1);
   for (let i = 0; i < np; i++) {
     let g = 0;
     for (const c of columns[i]) g += jtr[c];
-    rhs.set(i, 0, -g);
+    rhs[i] = -g;
     for (let j = 0; j < np; j++) {
       let h = 0;
       for (const ci of columns[i]) for (const cj of columns[j]) h += jtj[ci * 9 + cj];
-      a.set(i, j, h);
+      system[i * np + j] = h;
     }
   }
-  for (let i = 0; i < np; i++) a.set(i, i, a.get(i, i) * (1 + lambda) + EPSILON);
-  const step = solve(a, rhs).to1DArray();
-  return step.every(Number.isFinite) ? Float64Array.from(step) : null;
+  for (let i = 0; i < np; i++) system[i * np + i] = system[i * np + i] * (1 + lambda) + EPSILON;
+  // Cholesky: system = L·Lᵀ, L stored in the lower triangle.
+  for (let j = 0; j < np; j++) {
+    let d = system[j * np + j];
+    for (let k = 0; k < j; k++) d -= system[j * np + k] * system[j * np + k];
+    if (!(d > 0)) return null;
+    const l = Math.sqrt(d);
+    system[j * np + j] = l;
+    for (let i = j + 1; i < np; i++) {
+      let v = system[i * np + j];
+      for (let k = 0; k < j; k++) v -= system[i * np + k] * system[j * np + k];
+      system[i * np + j] = v / l;
+    }
+  }
+  const step = new Float64Array(np);
+  for (let i = 0; i < np; i++) {
+    let v = rhs[i];
+    for (let k = 0; k < i; k++) v -= system[i * np + k] * step[k];
+    step[i] = v / system[i * np + i];
+  }
+  for (let i = np - 1; i >= 0; i--) {
+    let v = step[i];
+    for (let k = i + 1; k < np; k++) v -= system[k * np + i] * step[k];
+    step[i] = v / system[i * np + i];
+  }
+  return step.every(Number.isFinite) ? step : null;
 }
 
 interface IterationResult {
@@ -264,9 +277,9 @@ function iterate(
 ): IterationResult {
   const linearise = (at: Float64Array): Sums => {
     loadShape(model, at);
-    if (!curvatureSelection) return sumNormalEquations(series, norm, at, selection);
-    const sampled = sumNormalEquations(series, norm, at, curvatureSelection);
-    const full = sumGradient(series, norm, at, selection);
+    if (!curvatureSelection) return sumNormalEquations(series, norm, at, selection, true);
+    const sampled = sumNormalEquations(series, norm, at, curvatureSelection, true);
+    const full = sumNormalEquations(series, norm, at, selection, false);
     const ratio = full.count / Math.max(1, sampled.count);
     for (let i = 0; i < 81; i++) jtj[i] *= ratio;
     return full;
@@ -401,41 +414,4 @@ export function refineEllipsoid(
   const estimate = fromParameters(initial.model, fine.p, norm) ?? initial;
   const relativeRms = fine.count > 0 ? Math.sqrt(fine.cost / fine.count) : 0;
   return { estimate, residualRms: relativeRms * estimate.fieldStrength, iterations, converged: fine.converged };
-}
-
-/**
- * Radial residual |W(x − b)| − R of every sample, input units, written into `out`
- * (length N; samples outside any selection are computed too). Allocation-free.
- */
-export function radialResiduals(series: Vec3Series, estimate: EllipsoidEstimate, out: Float64Array): Float64Array {
-  const { x, y, z } = series;
-  const [b0, b1, b2] = estimate.hardIronOffset;
-  const [[w00, w01, w02], [w10, w11, w12], [w20, w21, w22]] = estimate.softIronMatrix;
-  const R = estimate.fieldStrength;
-  for (let i = 0; i < x.length; i++) {
-    const d0 = x[i] - b0;
-    const d1 = y[i] - b1;
-    const d2 = z[i] - b2;
-    const v0 = w00 * d0 + w01 * d1 + w02 * d2;
-    const v1 = w10 * d0 + w11 * d1 + w12 * d2;
-    const v2 = w20 * d0 + w21 * d1 + w22 * d2;
-    out[i] = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2) - R;
-  }
-  return out;
-}
-
-/** RMS of the radial residuals over the selected samples, input units. */
-export function residualRmsOf(series: Vec3Series, estimate: EllipsoidEstimate, selection: SampleSelection = {}): number {
-  const residuals = radialResiduals(series, estimate, new Float64Array(series.x.length));
-  const { mask, indices } = selection;
-  const total = indices ? indices.length : residuals.length;
-  let sum = 0;
-  let count = 0;
-  for (let k = 0; k < total; k++) {
-    const i = indices ? indices[k] : k;
-    if (mask && mask[i] === 0) continue;
-    sum += residuals[i] * residuals[i];
-    count++;
-  }
-  return count > 0 ? Math.sqrt(sum / count) : 0;
 }

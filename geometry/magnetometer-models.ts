@@ -42,18 +42,24 @@ export function bayesianInformationCriterion(rss: number, n: number, k: number):
 }
 
 /**
- * Fit one model: algebraic fit for a start, then geometric refinement. Input units are
- * kept throughout.
+ * Fit one model: algebraic fit for a start (or the given `start`, e.g. the full-sample fit
+ * when refitting a bootstrap resample), then geometric refinement. Input units are kept
+ * throughout.
  */
 export function fitMagModel(
   series: Vec3Series,
   model: MagModel,
   selection: SampleSelection = {},
   refine: RefineOptions = {},
+  start?: EllipsoidEstimate,
 ): ModelFitResult {
-  const algebraic = fitEllipsoidAlgebraic(series, model, selection);
-  if (!algebraic.ok) return algebraic;
-  const refined = refineEllipsoid(series, algebraic.estimate, selection, refine);
+  let initial = start;
+  if (!initial || initial.model !== model) {
+    const algebraic = fitEllipsoidAlgebraic(series, model, selection);
+    if (!algebraic.ok) return algebraic;
+    initial = algebraic.estimate;
+  }
+  const refined = refineEllipsoid(series, initial, selection, refine);
   const samples = selectedCount(series, selection);
   const parameterCount = MODEL_PARAMETER_COUNT[model];
   const rss = refined.residualRms * refined.residualRms * samples;
@@ -85,12 +91,23 @@ export function toCandidate(fit: ModelFit): MagModelCandidate {
 
 /**
  * Fit every model on the same samples and pick one: the forced model when `choice` names
- * one, otherwise the lowest BIC. The reason is a sentence for the report.
+ * one, otherwise the lowest BIC. Fits in `alreadyFitted` (same samples) are reused. The
+ * reason is a sentence for the report.
  */
-export function chooseMagModel(series: Vec3Series, choice: MagModelChoice, selection: SampleSelection = {}): ModelChoiceResult {
+export function chooseMagModel(
+  series: Vec3Series,
+  choice: MagModelChoice,
+  selection: SampleSelection = {},
+  alreadyFitted: ModelFit[] = [],
+): ModelChoiceResult {
   const candidates: ModelFit[] = [];
   const failures: string[] = [];
   for (const model of MAG_MODELS) {
+    const known = alreadyFitted.find((f) => f.estimate.model === model);
+    if (known) {
+      candidates.push(known);
+      continue;
+    }
     const result = fitMagModel(series, model, selection);
     if (result.ok) candidates.push(result.fit);
     else failures.push(`${model}: ${result.detail}`);

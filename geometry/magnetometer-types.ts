@@ -200,8 +200,13 @@ export interface SimulatedMagnetometerSpec {
   noise?: number;
   /** Actual mounting: v_body = mountingRotation · v_sensor. Default identity. */
   mountingRotation?: Mat3;
-  /** Rotation the logger applies before writing (v_logged = declaredRotation · v_sensor). Default = mountingRotation. */
+  /** Rotation the logger is told about. Default = mountingRotation. */
   declaredRotation?: Mat3;
+  /**
+   * Frame of the logged values: "body" (default) — the logger applies the declared rotation,
+   * v_logged = declaredRotation · v_sensor; "sensor" — the sensor's own axes are written.
+   */
+  loggedFrame?: "body" | "sensor";
   /** Field added per ampere, µT/A, body frame. Default none. */
   currentCoupling?: Vec3;
   /** Readings are clamped to ±clipLevel µT per axis. Default none. */
@@ -238,9 +243,9 @@ export interface CaptureSpec {
   magnetometers?: SimulatedMagnetometerSpec[];
   /** Still holds before the rotation path (the accelerometer procedure). */
   holds?: SimulatedHoldsSpec;
-  /** Accelerometer errors: reading = scale ⊙ specificForce + offset + noise. Omit for no accel columns. */
+  /** Accelerometer errors: reading = scale ⊙ specificForce + offset + noise. Default a clean one; false for no accel columns. */
   accelerometer?: { offset?: Vec3; scale?: Vec3; noise?: number } | false;
-  /** Gyro errors: reading = rate + bias + noise, rad/s. Omit for no gyro columns. */
+  /** Gyro errors: reading = rate + bias + noise, rad/s. Default a clean one; false for no gyro columns. */
   gyro?: { bias?: Vec3; noise?: number } | false;
   /** A still motor run appended at the end: current rises and falls; current and throttle columns are written. */
   currentTest?: { maxAmps: number; seconds?: number; profile?: "ramp" | "steps" };
@@ -259,8 +264,9 @@ export interface CaptureTruthMagnetometer {
   loggedHardIronOffset: Vec3;
   mountingRotation: Mat3;
   declaredRotation: Mat3;
-  /** Rotation from this magnetometer's logged frame to mag0's: v_mag0 = r · v_this. */
+  /** Rotation from this magnetometer's logged frame to mag0's logged frame: v_mag0 = r · v_this. */
   rotationToMag0: Mat3;
+  loggedFrame: "body" | "sensor";
   currentCoupling: Vec3;
   clipLevel: number | null;
   quantisationStep: number | null;

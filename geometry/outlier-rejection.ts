@@ -8,8 +8,7 @@
  * Gaussian capture loses about one sample in two million, while spikes (a bumped sensor,
  * a passing car, a bus glitch) sit far outside.
  */
-import { MODEL_PARAMETER_COUNT } from "./ellipsoid-fit";
-import { radialResiduals } from "./ellipsoid-refine";
+import { MODEL_PARAMETER_COUNT, radialResiduals } from "./ellipsoid-fit";
 import { fitMagModel, type ModelFit } from "./magnetometer-models";
 import type { MagModel } from "./magnetometer-types";
 import type { Vec3Series } from "./types";

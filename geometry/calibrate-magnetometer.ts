@@ -1,0 +1,163 @@
+/**
+ * Calibrate one magnetometer from a capture in which it was turned through many
+ * orientations: the single entry point of the magnetometer engine.
+ *
+ * Steps, each in its own module:
+ * 1. skip samples with a non-finite axis (refuse when most are);
+ * 2. refuse data that cannot support a fit — too few samples, a ring, a small cap (fit-support);
+ * 3. fit the full model with outlier rejection (outlier-rejection), falling back to the
+ *    smaller models when the full one cannot be fitted;
+ * 4. fit the three models on the kept samples and choose one (magnetometer-models);
+ * 5. 95% intervals by a seeded bootstrap (bootstrap);
+ * 6. clipping and quantisation (saturation);
+ * 7. coverage of the corrected field directions (sphere-coverage).
+ * Units: whatever the field is given in (µT after unit conversion); every length-like
+ * output is in the same units.
+ */
+import { bootstrapIntervals } from "./bootstrap";
+import { MODEL_PARAMETER_COUNT, ellipsoidScales, fitEllipsoidAlgebraic } from "./ellipsoid-fit";
+import { checkFitSupport } from "./fit-support";
+import { chooseMagModel, toCandidate } from "./magnetometer-models";
+import type {
+  CalibrateMagnetometerOptions,
+  CoverageResult,
+  MagModel,
+  MagnetometerCalibration,
+  MagnetometerResult,
+} from "./magnetometer-types";
+import { normalisationOf } from "./normal-equations";
+import { fitWithOutlierRejection, type RobustFit } from "./outlier-rejection";
+import { analyseSaturation } from "./saturation";
+import { sphereCoverage } from "./sphere-coverage";
+import type { Interval95, Mat3, Vec3, Vec3Series } from "./types";
+
+/** Usable samples needed per model parameter. */
+export const SAMPLES_PER_PARAMETER = 10;
+
+/** corrected = softIronMatrix · (raw − hardIronOffset), sample by sample. Non-finite samples stay non-finite. */
+export function applyCorrection(cal: { hardIronOffset: Vec3; softIronMatrix: Mat3 }, field: Vec3Series): Vec3Series {
+  const n = field.x.length;
+  const out: Vec3Series = { x: new Float64Array(n), y: new Float64Array(n), z: new Float64Array(n) };
+  const [b0, b1, b2] = cal.hardIronOffset;
+  const [[w00, w01, w02], [w10, w11, w12], [w20, w21, w22]] = cal.softIronMatrix;
+  for (let i = 0; i < n; i++) {
+    const d0 = field.x[i] - b0;
+    const d1 = field.y[i] - b1;
+    const d2 = field.z[i] - b2;
+    out.x[i] = w00 * d0 + w01 * d1 + w02 * d2;
+    out.y[i] = w10 * d0 + w11 * d1 + w12 * d2;
+    out.z[i] = w20 * d0 + w21 * d1 + w22 * d2;
+  }
+  return out;
+}
+
+function finiteMask(field: Vec3Series): { mask: Uint8Array; count: number } {
+  const n = Math.min(field.x.length, field.y.length, field.z.length);
+  const mask = new Uint8Array(field.x.length);
+  let count = 0;
+  for (let i = 0; i < n; i++) {
+    if (Number.isFinite(field.x[i]) && Number.isFinite(field.y[i]) && Number.isFinite(field.z[i])) {
+      mask[i] = 1;
+      count++;
+    }
+  }
+  return { mask, count };
+}
+
+/** Coverage of raw directions about a rough centre, for refusals (no calibration to correct with). */
+function roughCoverage(field: Vec3Series, eligible: Uint8Array, options: CalibrateMagnetometerOptions): CoverageResult | undefined {
+  const rough = fitEllipsoidAlgebraic(field, "sphere", { mask: eligible });
+  const centre = rough.ok ? rough.estimate.hardIronOffset : normalisationOf(field, { mask: eligible }).centre;
+  const shifted = applyCorrection({ hardIronOffset: centre, softIronMatrix: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }, field);
+  return sphereCoverage(shifted, { mask: eligible, minSamplesPerCell: options.minSamplesPerCell, inclinationDeg: options.inclinationDeg });
+}
+
+/** The first model, most flexible first, that fits with outlier rejection. */
+function robustFit(field: Vec3Series, eligible: Uint8Array, order: MagModel[]): { robust: RobustFit } | { detail: string } {
+  const failures: string[] = [];
+  for (const model of order) {
+    const result = fitWithOutlierRejection(field, model, eligible);
+    if (result.ok) return { robust: result.robust };
+    failures.push(`${model}: ${result.detail}`);
+  }
+  return { detail: failures.join("; ") };
+}
+
+/**
+ * Calibrate one magnetometer. Returns the hard-iron offset, soft-iron matrix (symmetric,
+ * det 1), field strength, residual, model choice with its reason, 95% intervals, saturation
+ * and coverage — or a typed refusal with the reason and, where it helps, the coverage seen.
+ */
+export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagnetometerOptions = {}): MagnetometerResult {
+  const choice = options.model ?? "auto";
+  const total = field.x.length;
+  const { mask: eligible, count: finite } = finiteMask(field);
+  const nonFiniteSkipped = total - finite;
+  if (finite === 0 || nonFiniteSkipped > total / 2) {
+    return {
+      ok: false,
+      reason: "non-finite",
+      detail: `${nonFiniteSkipped} of ${total} samples have a missing or non-numeric axis; check the column mapping and units.`,
+    };
+  }
+
+  const largestModel: MagModel = choice === "auto" ? "full" : choice;
+  const support = checkFitSupport(field, eligible, SAMPLES_PER_PARAMETER * MODEL_PARAMETER_COUNT[largestModel]);
+  if (!support.ok) {
+    return { ok: false, reason: support.reason, detail: support.detail, coverage: finite > 0 ? roughCoverage(field, eligible, options) : undefined };
+  }
+
+  const robust = robustFit(field, eligible, ["full", "axis", "sphere"]);
+  if (!("robust" in robust)) {
+    return {
+      ok: false,
+      reason: "not-an-ellipsoid",
+      detail: `No ellipsoid fits these samples (${robust.detail}). Check that the columns are one magnetometer's x, y and z.`,
+      coverage: roughCoverage(field, eligible, options),
+    };
+  }
+  const { inliers, outliersRejected } = robust.robust;
+  const chosen = chooseMagModel(field, choice, { mask: inliers }, [robust.robust.fit]);
+  if (!chosen.ok) {
+    return { ok: false, reason: "not-an-ellipsoid", detail: `The ${choice} model could not be fitted: ${chosen.detail}.`, coverage: roughCoverage(field, eligible, options) };
+  }
+  const { estimate, residualRms, samples } = chosen.choice.chosen;
+  const scales = ellipsoidScales(estimate.softIronMatrix);
+
+  let offsetInterval95: [Interval95, Interval95, Interval95];
+  let scaleInterval95: [Interval95, Interval95, Interval95];
+  let bootstrapResamples = 0;
+  if (options.bootstrap ?? true) {
+    const boot = bootstrapIntervals(field, estimate.model, inliers, { offset: estimate.hardIronOffset, scales, start: estimate }, { seed: options.seed ?? 1 });
+    offsetInterval95 = boot.offsetInterval95;
+    scaleInterval95 = boot.scaleInterval95;
+    bootstrapResamples = boot.resamples;
+  } else {
+    const point = (v: Vec3) => v.map((a) => ({ low: a, high: a })) as [Interval95, Interval95, Interval95];
+    offsetInterval95 = point(estimate.hardIronOffset);
+    scaleInterval95 = point(scales);
+  }
+
+  const corrected = applyCorrection(estimate, field);
+  const calibration: MagnetometerCalibration = {
+    ok: true,
+    model: estimate.model,
+    modelReason: chosen.choice.reason,
+    hardIronOffset: estimate.hardIronOffset,
+    softIronMatrix: estimate.softIronMatrix,
+    fieldStrength: estimate.fieldStrength,
+    residualRms,
+    residualRmsPercent: (100 * residualRms) / estimate.fieldStrength,
+    scales,
+    samplesUsed: samples,
+    outliersRejected,
+    nonFiniteSkipped,
+    offsetInterval95,
+    scaleInterval95,
+    bootstrapResamples,
+    candidates: chosen.choice.candidates.map(toCandidate),
+    saturation: analyseSaturation(field, eligible),
+    coverage: sphereCoverage(corrected, { mask: inliers, minSamplesPerCell: options.minSamplesPerCell, inclinationDeg: options.inclinationDeg }),
+  };
+  return calibration;
+}

@@ -25,9 +25,26 @@ function faceName(face: BodyFace): string {
   return `${FACE_WORDS[face]} (${face} down)`;
 }
 
-/** Every accelerometer check for one sensor. */
+/**
+ * Every accelerometer check for one sensor. A capture holding fewer than two faces still is
+ * not an accelerometer calibration (a compass tumble, a motor run): its accelerometer only
+ * served to find still periods, and one skipped check says so.
+ */
 export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: ThresholdTable): Check[] {
   const { sensor, result } = input;
+  const facesHeld = 6 - input.faces.missingFaces.length;
+  if (facesHeld < 2) {
+    return [
+      skippedCheck(
+        thresholds,
+        "accel.faces",
+        "Six faces held",
+        sensor,
+        `This capture holds ${facesHeld === 0 ? "no face" : "only one face"} still, so it is not an accelerometer calibration; the accelerometer was used to tell when the vehicle was still.`,
+        "To calibrate the accelerometer, hold the vehicle still for a few seconds in each of the six attitudes.",
+      ),
+    ];
+  }
   const checks: Check[] = [facesCheck(sensor, input.faces, thresholds)];
   if (!result.ok) {
     checks.push({

@@ -12,7 +12,8 @@
  * trimmed by half a window at each end that borders motion: those samples passed only
  * because their window still straddled the end of a move. A slow, steady turn can pass the
  * variance tests, so a run is also split where its direction (over blocks of half a window)
- * has drifted more than 5° from where the run began.
+ * has drifted more than 5° from where the run began, or where the gyro's rate, integrated
+ * since then, adds up to a 5° turn.
  *
  * Default thresholds (common practice for hand-held calibration with MEMS sensors):
  * - window 0.5 s: long enough to average sensor noise, short enough to resolve the moves
@@ -21,7 +22,8 @@
  *   turning a vehicle from one face to the next exceeds both several times over, while a
  *   hold that wobbles by up to about a degree stays inside them — so that its wobble can be
  *   measured and reported on the pose, rather than the hold being lost;
- * - minimum duration 1 s; largest drift of direction within a period 5°.
+ * - minimum duration 2 s (a calibration hold lasts several seconds; a tumble's brief pauses
+ *   at odd attitudes are shorter); largest drift of direction or turn within a period 5°.
  * Everything computed from these periods uses means (bias, pose direction, dip) or
  * high-passed spreads (gyro noise), which a small wobble does not disturb.
  *
@@ -46,7 +48,7 @@ export interface StillPeriodOptions {
   accelStdThresholdMps2?: number;
   /** Largest window RMS of the bias-free angular-rate vector, rad/s; default 0.35. */
   gyroRateThresholdRadPerS?: number;
-  /** Shortest period kept, seconds; default 1. */
+  /** Shortest period kept, seconds; default 2. */
   minDurationS?: number;
   /** Largest change of the reading's direction within one period, degrees; default 5. */
   maxDriftDeg?: number;
@@ -58,7 +60,7 @@ export const STILL_PERIOD_DEFAULTS = {
   windowS: 0.5,
   accelStdThresholdMps2: 0.6,
   gyroRateThresholdRadPerS: 0.35,
-  minDurationS: 1,
+  minDurationS: 2,
   maxDriftDeg: 5,
 } as const;
 
@@ -174,9 +176,10 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
 
   const mask = new Uint8Array(n).fill(1);
   markLowVariance(accel, halfWindow, options.accelStdThresholdMps2 ?? STILL_PERIOD_DEFAULTS.accelStdThresholdMps2, mask);
-  if (options.gyro) {
-    const bias = maskedMedian(options.gyro, mask);
-    markLowRate(options.gyro, bias, halfWindow, options.gyroRateThresholdRadPerS ?? STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS, mask);
+  const gyro = options.gyro;
+  const bias: [number, number, number] = gyro ? maskedMedian(gyro, mask) : [0, 0, 0];
+  if (gyro) {
+    markLowRate(gyro, bias, halfWindow, options.gyroRateThresholdRadPerS ?? STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS, mask);
   }
 
   const periods: StillPeriod[] = [];
@@ -193,12 +196,16 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
     }
     start = -1;
   };
-  // Drift test on block means of half a window: a run whose direction wanders away from
-  // where it began is a slow move, split where it has wandered too far.
+  // Drift tests at the end of each block of half a window: a run whose direction wanders
+  // from where it began (block means of the acceleration), or whose integrated rate adds up
+  // to a turn (which also catches a slow turn about the vertical, invisible to gravity), is a
+  // slow move, split where it has gone too far. A wobble's rate integrates back to zero.
   const blockSize = halfWindow;
   const cosLimit = Math.cos((maxDriftDeg * Math.PI) / 180);
+  const turnLimit = (maxDriftDeg * Math.PI) / 180;
   let anchorX = 0, anchorY = 0, anchorZ = 0, hasAnchor = false;
   let blockStart = 0, bx = 0, by = 0, bz = 0;
+  let turnX = 0, turnY = 0, turnZ = 0;
   for (let i = 0; i < n; i++) {
     if (mask[i] === 1) {
       if (start >= 0 && timeS[i] - timeS[i - 1] > gapS) close(i);
@@ -207,23 +214,30 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
         hasAnchor = false;
         blockStart = i;
         bx = by = bz = 0;
+        turnX = turnY = turnZ = 0;
       }
       bx += accel.x[i];
       by += accel.y[i];
       bz += accel.z[i];
+      if (gyro) {
+        turnX += (gyro.x[i] - bias[0]) * step;
+        turnY += (gyro.y[i] - bias[1]) * step;
+        turnZ += (gyro.z[i] - bias[2]) * step;
+      }
       if (i - blockStart + 1 === blockSize) {
         const length = Math.hypot(bx, by, bz);
-        if (!hasAnchor) {
+        const drifted = hasAnchor && (anchorX * bx + anchorY * by + anchorZ * bz) / length < cosLimit;
+        const turned = Math.hypot(turnX, turnY, turnZ) > turnLimit;
+        if (!hasAnchor || drifted || turned) {
+          if (drifted || turned) {
+            close(blockStart);
+            start = blockStart;
+            turnX = turnY = turnZ = 0;
+          }
           anchorX = bx / length;
           anchorY = by / length;
           anchorZ = bz / length;
           hasAnchor = true;
-        } else if ((anchorX * bx + anchorY * by + anchorZ * bz) / length < cosLimit) {
-          close(blockStart);
-          start = blockStart;
-          anchorX = bx / length;
-          anchorY = by / length;
-          anchorZ = bz / length;
         }
         blockStart = i + 1;
         bx = by = bz = 0;

@@ -22,11 +22,11 @@ export interface Threshold {
 
 export const THRESHOLDS = {
   "mag.coverage": {
-    warnBelow: 70,
-    failBelow: 50,
-    unit: "%",
-    source: "common practice",
-    basis: "below about two thirds of the sphere the fit can trade offset against soft iron along the missing directions",
+    warnBelow: 50,
+    failBelow: 30,
+    unit: "% of cells",
+    source: "common practice, set against simulated captures: a minute's full tumble fills 55–70% of the cells (3 samples each), turning about one axis under 25%",
+    basis: "where half the directions were never visited the fit can trade offset against soft iron along the missing ones",
   },
   "mag.gap": {
     warnAbove: 35,

@@ -24,14 +24,14 @@ describe("findStillPeriods", () => {
     const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 6 }], gyroBias: [0.03, -0.02, 0.05] });
     // A steady rotation about the vertical leaves gravity's components unchanged.
     for (let i = 100; i < 200; i++) recording.gyro.z[i] += 1;
-    const withoutGyro = findStillPeriods(recording.time, recording.accel);
-    const withGyro = findStillPeriods(recording.time, recording.accel, { gyro: recording.gyro });
+    const withoutGyro = findStillPeriods(recording.time, recording.accel, { minDurationS: 1 });
+    const withGyro = findStillPeriods(recording.time, recording.accel, { gyro: recording.gyro, minDurationS: 1 });
     expect(withoutGyro).toHaveLength(1);
     expect(withGyro).toHaveLength(2);
   });
 
   test.each([
-    { label: "short holds are dropped", holdS: 0.6, minDurationS: 1, expected: 0 },
+    { label: "short holds are dropped", holdS: 1.5, minDurationS: undefined, expected: 0 },
     { label: "a lower minimum keeps them", holdS: 0.9, minDurationS: 0.2, expected: 2 },
   ])("$label", ({ holdS, minDurationS, expected }) => {
     const recording = accelerometerRecording({ holds: [{ face: "+z", holdS }, { face: "-z", holdS }] });
@@ -39,7 +39,7 @@ describe("findStillPeriods", () => {
   });
 
   test("a gap in the time stamps splits a period", () => {
-    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 6 }] });
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 7 }] });
     for (let i = 150; i < recording.time.length; i++) recording.time[i] += 5;
     const periods = findStillPeriods(recording.time, recording.accel);
     expect(periods).toHaveLength(2);
@@ -100,5 +100,30 @@ describe("stillMask", () => {
       { startIndex: 6, endIndex: 7, startTimeS: 0, endTimeS: 0, durationS: 0 },
     ]);
     expect(Array.from(mask)).toEqual([0, 1, 1, 0, 0, 0, 1, 0, 0, 0]);
+  });
+});
+
+describe("findStillPeriods with a gyroscope", () => {
+  test("a slow turn about the vertical (invisible to gravity) is split by the integrated rate", () => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 10 }, { face: "-z", holdS: 10 }, { face: "+x", holdS: 10 }] });
+    // 4 °/s about the vertical during the last hold only: under the rate threshold, 40° in all.
+    const last = recording.holdWindows[2];
+    for (let i = 0; i < recording.gyro.x.length; i++) {
+      if (recording.time[i] >= last.startS) recording.gyro.x[i] += (4 * Math.PI) / 180;
+    }
+    const withoutGyro = findStillPeriods(recording.time, recording.accel, { minDurationS: 0.5 });
+    const withGyro = findStillPeriods(recording.time, recording.accel, { gyro: recording.gyro, minDurationS: 0.5 });
+    expect(withoutGyro).toHaveLength(3);
+    // The first two holds stay whole; the turning one falls into pieces that each turn less
+    // than 5°, i.e. last under 1.25 s.
+    expect(withGyro[0].durationS).toBeGreaterThan(8.5);
+    expect(withGyro[1].durationS).toBeGreaterThan(8.5);
+    for (const period of withGyro.slice(2)) expect(period.durationS).toBeLessThan(1.3);
+  });
+
+  test("a wobble's rate integrates back to nothing: the hold stays whole", () => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 6 }] });
+    for (let i = 0; i < recording.gyro.x.length; i++) recording.gyro.x[i] += 0.15 * Math.sin(2 * Math.PI * 1.5 * recording.time[i]);
+    expect(findStillPeriods(recording.time, recording.accel, { gyro: recording.gyro })).toHaveLength(1);
   });
 });

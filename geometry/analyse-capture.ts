@@ -1,0 +1,270 @@
+/**
+ * The one entry point for analysing a calibration capture: units, references, still
+ * periods, every fit, the cross-checks, the checks, the verdict and the diagnosis.
+ *
+ * The server, the CLI and the class mode call this and nothing else, so every surface
+ * reports the same numbers. Pure and synchronous; the input table is never modified.
+ */
+import { fitAccelerometer, type AccelerometerResult, type AccelModel } from "./accelerometer-fit";
+import { groupPoses, summariseFaces, type AccelerometerPose } from "./accelerometer-poses";
+import { convertCapture, resolveCaptureUnits, type CaptureUnits, type ResolvedUnit } from "./capture-units";
+import { accelerometerChecks, gyroscopeChecks } from "./checks-accelerometer";
+import { accelerometerAgreementCheck, gyroscopeAgreementCheck } from "./checks-capture";
+import { magnetometerChecks } from "./checks-magnetometer";
+import { sensorsInFields } from "./column-names";
+import type { AffineCorrection } from "./dip-check";
+import { STANDARD_GRAVITY_MPS2, normalGravity } from "./gravity";
+import { estimateGyroBias, type GyroBias, type GyroBiasRefusal } from "./gyro-bias";
+import { magneticReference, type MagneticReference, type Site } from "./magnetic-reference";
+import { analyseMagnetometers, type MagnetometerAnalysis } from "./magnetometer-analysis";
+import type { MagModelChoice } from "./magnetometer-types";
+import { compareAccelerometers, compareGyroscopes, type AccelerometerAgreement, type GyroscopeAgreement } from "./sensor-agreement";
+import { findStillPeriods, type StillPeriod } from "./still-periods";
+import { resolveThresholds, type ThresholdOverrides } from "./thresholds";
+import type { CaptureField, Check, ColumnTable, Mat3, Vec3, Vec3Series } from "./types";
+import type { UnitSpec } from "./units";
+import { diagnose, overallVerdict, type LikelyCause, type VerdictStatus } from "./verdict";
+
+export interface AnalyseCaptureOptions {
+  site?: Site | null;
+  /** Date of the capture; defaults to now when a site is given. */
+  date?: Date | null;
+  /** Units stated by the user, one per kind; they win over column names and guesses. */
+  units?: CaptureUnits;
+  /** Units read from column names (from the ingest). */
+  unitHints?: Record<CaptureField, UnitSpec>;
+  /** Magnetometer model; default "auto". */
+  model?: MagModelChoice;
+  /** Accelerometer model; default "auto". */
+  accelerometerModel?: AccelModel | "auto";
+  /**
+   * Declared mounting rotation of each compass (by sensor, e.g. "mag1"): the rotation the
+   * flight controller is told, v_body = R · v_logged, as a matrix or a standard name
+   * ("yaw 90"). Default none: the logged values are taken to be in the body frame already.
+   */
+  mountingRotations?: Record<string, Mat3 | string>;
+  thresholds?: ThresholdOverrides;
+  /** Seed of the bootstraps; default 1. */
+  seed?: number;
+  /** Run the bootstrap for 95% intervals; default true. */
+  bootstrap?: boolean;
+  /** Sample rate assumed when the table has no time column, Hz; default 50. */
+  sampleRateHz?: number;
+}
+
+export interface AccelerometerAnalysis {
+  sensor: string;
+  ok: boolean;
+  offset: Vec3 | null;
+  scale: Vec3 | null;
+  poses: AccelerometerPose[];
+  missingFaces: string[];
+  repeatedFaces: string[];
+  calibration: AccelerometerResult;
+}
+
+export interface GyroscopeAnalysis {
+  sensor: string;
+  ok: boolean;
+  biasRadPerS: Vec3 | null;
+  noiseRadPerS: Vec3 | null;
+  result: GyroBias | GyroBiasRefusal;
+}
+
+export interface CaptureAnalysis {
+  samples: number;
+  durationS: number;
+  sampleRateHz: number;
+  site: Site | null;
+  /** ISO date of the capture used for the model, or null without a site. */
+  date: string | null;
+  reference: { magnetic: MagneticReference | null; gravityMps2: number; gravitySource: string };
+  units: Record<string, ResolvedUnit>;
+  stillPeriods: StillPeriod[];
+  magnetometers: MagnetometerAnalysis[];
+  /** The first accelerometer, for callers that expect one. */
+  accelerometer: AccelerometerAnalysis | null;
+  accelerometers: AccelerometerAnalysis[];
+  gyroscopes: GyroscopeAnalysis[];
+  crossChecks: { accelerometerAgreement: AccelerometerAgreement[]; gyroscopeAgreement: GyroscopeAgreement[] };
+  checks: Check[];
+  verdict: VerdictStatus;
+  verdictSummary: string;
+  diagnosis: LikelyCause[];
+  notes: string[];
+}
+
+function seriesOf(table: ColumnTable, sensor: string): Vec3Series {
+  return { x: table.columns[`${sensor}.x`], y: table.columns[`${sensor}.y`], z: table.columns[`${sensor}.z`] };
+}
+
+function accelerometerCorrection(result: AccelerometerResult | undefined): AffineCorrection | undefined {
+  return result?.ok ? { offset: result.offset, matrix: result.correctionMatrix } : undefined;
+}
+
+/**
+ * Analyses a capture.
+ *
+ * @param table canonical fields (time, magN.*, accelN.*, gyroN.*, current, throttle) in any
+ *   units; see `options.units` and `options.unitHints`.
+ */
+export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOptions = {}): CaptureAnalysis {
+  const notes: string[] = [];
+  const thresholds = resolveThresholds(options.thresholds);
+  const units = resolveCaptureUnits(table, options.units, options.unitHints);
+  for (const [name, unit] of Object.entries(units)) {
+    if (unit.how === "guessed") notes.push(`${name}: unit not stated, taken as ${unit.label} from the size of its readings.`);
+    if (unit.how === "unknown") notes.push(`${name}: unit not stated; field-strength checks against the model are skipped.`);
+  }
+  const capture = convertCapture(table, units);
+  if (!capture.columns.time) {
+    const rate = options.sampleRateHz ?? 50;
+    capture.columns.time = Float64Array.from({ length: capture.length }, (_, i) => i / rate);
+    capture.fields.push("time");
+    notes.push(`No time column: samples taken as evenly spaced at ${rate} Hz.`);
+  }
+  const time = capture.columns.time;
+  const durationS = capture.length > 1 ? time[capture.length - 1] - time[0] : 0;
+  const sampleRateHz = durationS > 0 ? (capture.length - 1) / durationS : options.sampleRateHz ?? 50;
+
+  // References for the site and date.
+  const site = options.site ?? null;
+  const date = site ? (options.date ?? new Date()) : (options.date ?? null);
+  let magnetic: MagneticReference | null = null;
+  if (site && date) {
+    magnetic = magneticReference(site, date);
+    if (!magnetic.withinValidity) {
+      notes.push(`The date ${date.toISOString().slice(0, 10)} lies outside ${magnetic.modelName} (${magnetic.validFrom.toISOString().slice(0, 10)} to ${magnetic.validTo.toISOString().slice(0, 10)}); the field was evaluated at the nearest valid date.`);
+    }
+  }
+  const gravityMps2 = site ? normalGravity(site.latitudeDeg, site.altitudeM) : STANDARD_GRAVITY_MPS2;
+  const gravitySource = site ? "WGS 84 normal gravity at the site" : "standard gravity (no site given)";
+
+  const sensors = sensorsInFields(capture.fields);
+  const checks: Check[] = [];
+
+  // Still periods, from the first accelerometer (and gyroscope).
+  const accel0 = sensors.accel[0] ? seriesOf(capture, sensors.accel[0]) : null;
+  const gyro0 = sensors.gyro[0] ? seriesOf(capture, sensors.gyro[0]) : undefined;
+  const stillPeriods = accel0 ? findStillPeriods(time, accel0, { gyro: gyro0 }) : [];
+
+  // Accelerometers.
+  const accelerometers: AccelerometerAnalysis[] = sensors.accel.map((sensor) => {
+    const series = seriesOf(capture, sensor);
+    const poses = groupPoses(time, series, stillPeriods);
+    const faces = summariseFaces(poses);
+    const calibration = fitAccelerometer(poses, { gravityMps2, model: options.accelerometerModel });
+    checks.push(
+      ...accelerometerChecks(
+        {
+          sensor,
+          poses,
+          faces,
+          result: calibration,
+          gravity: { valueMps2: gravityMps2, source: gravitySource },
+          unitsScaledToGravity: units[sensor].how === "guessed" && units[sensor].spec.unit === "counts",
+        },
+        thresholds,
+      ),
+    );
+    return {
+      sensor,
+      ok: calibration.ok,
+      offset: calibration.ok ? calibration.offset : null,
+      scale: calibration.ok ? calibration.scale : null,
+      poses,
+      missingFaces: faces.missingFaces,
+      repeatedFaces: faces.repeatedFaces,
+      calibration,
+    };
+  });
+
+  // Gyroscopes.
+  const gyroscopes: GyroscopeAnalysis[] = sensors.gyro.map((sensor) => {
+    const result = estimateGyroBias(seriesOf(capture, sensor), stillPeriods);
+    checks.push(...gyroscopeChecks(sensor, result, thresholds));
+    return {
+      sensor,
+      ok: result.ok,
+      biasRadPerS: result.ok ? result.biasRadPerS : null,
+      noiseRadPerS: result.ok ? result.noiseRadPerS : null,
+      result,
+    };
+  });
+
+  // Magnetometers, with dip, mounting and current coupling.
+  const accelCorrection = accelerometerCorrection(accelerometers[0]?.calibration);
+  const magnetometers = analyseMagnetometers({
+    capture,
+    sensors: sensors.mag,
+    units,
+    reference: magnetic,
+    stillPeriods,
+    accel: accel0 ? { series: accel0, correction: accelCorrection } : null,
+    mountingRotations: options.mountingRotations ?? {},
+    model: options.model ?? "auto",
+    seed: options.seed ?? 1,
+    bootstrap: options.bootstrap ?? true,
+    notes,
+  });
+  for (const mag of magnetometers) {
+    checks.push(
+      ...magnetometerChecks(
+        {
+          sensor: mag.sensor,
+          result: mag.calibration,
+          unitsPhysical: units[mag.sensor].physical,
+          reference: magnetic,
+          dip: mag.dip,
+          dipUnavailableReason: accel0 ? undefined : "There is no accelerometer in this capture to tell which way is down.",
+          mounting: mag.mountingComparison,
+          coupling: mag.currentCoupling,
+        },
+        thresholds,
+      ),
+    );
+  }
+
+  // Redundant accelerometers and gyroscopes against the first of each.
+  const accelerometerAgreement: AccelerometerAgreement[] = [];
+  for (const other of accelerometers.slice(1)) {
+    const agreement = compareAccelerometers([accelerometers[0].sensor, other.sensor], accel0!, seriesOf(capture, other.sensor), stillPeriods, {
+      a: accelCorrection,
+      b: accelerometerCorrection(other.calibration),
+    });
+    if (agreement) {
+      accelerometerAgreement.push(agreement);
+      checks.push(accelerometerAgreementCheck(agreement, thresholds));
+    }
+  }
+  const gyroscopeAgreement: GyroscopeAgreement[] = [];
+  for (const other of sensors.gyro.slice(1)) {
+    const agreement = compareGyroscopes([sensors.gyro[0], other], gyro0!, seriesOf(capture, other));
+    if (agreement) {
+      gyroscopeAgreement.push(agreement);
+      checks.push(gyroscopeAgreementCheck(agreement, thresholds));
+    }
+  }
+
+  const verdict = overallVerdict(checks);
+  return {
+    samples: capture.length,
+    durationS,
+    sampleRateHz,
+    site,
+    date: date ? date.toISOString() : null,
+    reference: { magnetic, gravityMps2, gravitySource },
+    units,
+    stillPeriods,
+    magnetometers,
+    accelerometer: accelerometers[0] ?? null,
+    accelerometers,
+    gyroscopes,
+    crossChecks: { accelerometerAgreement, gyroscopeAgreement },
+    checks,
+    verdict: verdict.status,
+    verdictSummary: verdict.summary,
+    diagnosis: diagnose(checks),
+    notes,
+  };
+}

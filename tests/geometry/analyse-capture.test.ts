@@ -1,0 +1,186 @@
+import { describe, expect, test } from "vitest";
+import { analyseCapture, type AnalyseCaptureOptions } from "@/geometry/analyse-capture";
+import { magneticReference } from "@/geometry/magnetic-reference";
+import type { BodyFace, CaptureSpec } from "@/geometry/magnetometer-types";
+import { rotationZ } from "@/geometry/rotation";
+import { simulateCapture } from "@/geometry/simulator";
+import type { Check } from "@/geometry/types";
+
+// An invented site and date; the World Magnetic Model gives its real field.
+const site = { latitudeDeg: 46.8, longitudeDeg: 9.6, altitudeM: 600 };
+const date = new Date("2026-04-15T00:00:00Z");
+const reference = magneticReference(site, date);
+const SIX: BodyFace[] = ["+z", "-z", "+x", "-x", "+y", "-y"];
+const microtesla: AnalyseCaptureOptions["units"] = { magnetic: { kind: "magnetic", unit: "uT" } };
+
+function analyse(spec: CaptureSpec, options: AnalyseCaptureOptions = {}) {
+  const simulated = simulateCapture({ seed: 11, siteFieldNed: reference.fieldNedMicrotesla, ...spec });
+  const analysis = analyseCapture(simulated.table, { site, date, units: microtesla, bootstrap: false, ...options });
+  return { ...simulated, analysis };
+}
+
+function find(checks: Check[], id: string, sensor?: string): Check {
+  const check = checks.find((c) => c.id === id && (sensor === undefined || c.sensor === sensor));
+  if (!check) throw new Error(`no check ${id}${sensor ? `@${sensor}` : ""}`);
+  return check;
+}
+
+describe("analyseCapture", () => {
+  test("a good capture passes", () => {
+    const { analysis, truth } = analyse({
+      holds: { faces: SIX },
+      accelerometer: { offset: [0.15, -0.2, 0.25], scale: [1.01, 0.99, 1.015] },
+      gyro: { bias: [0.004, -0.006, 0.002] },
+      magnetometers: [{ hardIronOffset: [8, -3, 14], softIron: "mild" }, { hardIronOffset: [-2, 5, 1] }],
+    });
+    const flagged = analysis.checks.filter((c) => c.status === "warn" || c.status === "fail");
+    expect(flagged.map((c) => `${c.id}@${c.sensor}: ${c.explanation}`)).toEqual([]);
+    expect(analysis.verdict).toBe("pass");
+    expect(analysis.diagnosis).toEqual([]);
+    expect(analysis.magnetometers).toHaveLength(2);
+    const mag0 = analysis.magnetometers[0];
+    for (let k = 0; k < 3; k++) expect(mag0.offset![k]).toBeCloseTo(truth.magnetometers[0].loggedHardIronOffset[k], 0);
+    expect(mag0.coverage!.fraction).toBeGreaterThan(0.5);
+    // The accelerometer fitted to WGS 84 normal gravity at the site (NIMA TR8350.2).
+    expect(analysis.reference.gravitySource).toMatch(/WGS 84/);
+    expect(analysis.accelerometer!.missingFaces).toEqual([]);
+    expect(analysis.accelerometer!.poses.map((p) => p.face)).toEqual(SIX);
+  });
+
+  test("yaw-only rotation fails coverage and the diagnosis says so first", () => {
+    const { analysis } = analyse({ path: "yaw-only" });
+    expect(find(analysis.checks, "mag.coverage", "mag0").status).toBe("fail");
+    expect(analysis.verdict).toBe("fail");
+    expect(analysis.diagnosis[0].id).toBe("incomplete-rotation");
+  });
+
+  test.each([
+    { label: "yaw 90", rotation: rotationZ(90), names: ["yaw 90", "yaw 270"] },
+    { label: "yaw 45", rotation: rotationZ(45), names: ["yaw 45", "yaw 315"] },
+  ])("a second compass mounted $label against its declaration fails the mounting check", ({ rotation, names }) => {
+    const { analysis } = analyse({
+      magnetometers: [{}, { mountingRotation: rotation, declaredRotation: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }],
+    });
+    const mounting = find(analysis.checks, "mag.mounting", "mag1");
+    expect(mounting.status).toBe("fail");
+    expect(names.some((name) => mounting.explanation.includes(`"${name}"`))).toBe(true);
+    expect(analysis.diagnosis[0].id).toBe("mounting");
+  });
+
+  test("declaring the rotation the module really has makes the mounting check pass", () => {
+    const { analysis } = analyse(
+      { magnetometers: [{}, { mountingRotation: rotationZ(90), declaredRotation: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }] },
+      { mountingRotations: { mag1: "yaw 90" } },
+    );
+    // Either sense of the name is accepted above; here the declaration must match the data.
+    const mounting = find(analysis.checks, "mag.mounting", "mag1");
+    const other = analyseCapture(simulateCapture({ seed: 11, siteFieldNed: reference.fieldNedMicrotesla, magnetometers: [{}, { mountingRotation: rotationZ(90), declaredRotation: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }] }).table, {
+      site,
+      date,
+      units: microtesla,
+      bootstrap: false,
+      mountingRotations: { mag1: "yaw 270" },
+    });
+    const statuses = [mounting.status, find(other.checks, "mag.mounting", "mag1").status].sort();
+    expect(statuses).toEqual(["fail", "pass"]);
+  });
+
+  test.each([
+    // Invented couplings; 40 A at the top of the run.
+    { label: "weak coupling passes", coupling: [0.02, 0.01, -0.02], status: "pass" },
+    { label: "moderate coupling warns", coupling: [0.08, 0.04, -0.06], status: "warn" },
+    { label: "strong coupling fails", coupling: [0.3, 0.1, -0.25], status: "fail" },
+  ] as const)("current coupling: $label", ({ coupling, status }) => {
+    const { analysis } = analyse({
+      holds: { faces: ["+z"] },
+      magnetometers: [{ currentCoupling: [...coupling] }],
+      currentTest: { maxAmps: 40 },
+    });
+    const check = find(analysis.checks, "mag.current", "mag0");
+    expect(check.status).toBe(status);
+    // The cautions travel with the check whenever motors were powered.
+    expect(check.remedy).toMatch(/propellers off/);
+    expect(check.remedy).toMatch(/restrained/);
+    expect(check.remedy).toMatch(/aviation rules/);
+    const expectedPercent = (100 * Math.hypot(...coupling) * 40) / reference.fieldStrengthMicrotesla;
+    expect(Number(check.measured)).toBeCloseTo(expectedPercent, 0);
+  });
+
+  test("a field stated in the wrong unit fails as implausible and the diagnosis blames units", () => {
+    const { analysis } = analyse({}, { units: { magnetic: { kind: "magnetic", unit: "mG" } } });
+    expect(find(analysis.checks, "mag.field-plausible", "mag0").status).toBe("fail");
+    expect(analysis.diagnosis[0].id).toBe("units");
+  });
+
+  test("without stated units the field-strength checks are skipped, not guessed", () => {
+    const { analysis } = analyse({}, { units: {} });
+    expect(find(analysis.checks, "mag.field-vs-model", "mag0").status).toBe("skipped");
+    expect(find(analysis.checks, "mag.field-plausible", "mag0").status).toBe("skipped");
+    expect(analysis.notes.join(" ")).toMatch(/mag0: unit not stated/);
+  });
+
+  test("without a site the model checks are skipped and standard gravity is used (CGPM 1901)", () => {
+    const simulated = simulateCapture({ seed: 3, holds: { faces: SIX } });
+    const analysis = analyseCapture(simulated.table, { units: microtesla, bootstrap: false });
+    expect(analysis.reference.gravityMps2).toBe(9.80665);
+    expect(find(analysis.checks, "mag.dip", "mag0").status).toBe("skipped");
+    expect(find(analysis.checks, "mag.field-vs-model", "mag0").status).toBe("skipped");
+  });
+
+  test("the input table is not modified", () => {
+    const simulated = simulateCapture({ seed: 3, holds: { faces: SIX } });
+    const before = simulated.table.columns["accel0.z"].slice();
+    const beforeTime = simulated.table.columns.time.slice();
+    analyseCapture(simulated.table, { units: { ...microtesla, acceleration: { kind: "acceleration", unit: "g" } }, bootstrap: false });
+    expect(simulated.table.columns["accel0.z"]).toEqual(before);
+    expect(simulated.table.columns.time).toEqual(beforeTime);
+  });
+
+  test("the same capture and seed give the same analysis", () => {
+    const spec = { seed: 4, holds: { faces: SIX } };
+    const a = analyseCapture(simulateCapture(spec).table, { site, date, units: microtesla, seed: 9 });
+    const b = analyseCapture(simulateCapture(spec).table, { site, date, units: microtesla, seed: 9 });
+    expect(JSON.stringify(a)).toBe(JSON.stringify(b));
+  });
+});
+
+describe("analyseCapture: accelerometer from a simulated recording", () => {
+  test("six poses recovered, offsets and scales within tolerance", () => {
+    const offset = [0.35, -0.25, 0.4];
+    const scale = [1.02, 0.985, 1.01];
+    const { analysis } = analyse({ holds: { faces: SIX }, accelerometer: { offset: [...offset] as never, scale: [...scale] as never, noise: 0.02 } });
+    const accel = analysis.accelerometer!;
+    expect(accel.poses.map((p) => p.face)).toEqual(SIX);
+    // Simulated noise 0.02 m/s² over ~180 samples per hold; the gravity used is the site's
+    // normal gravity while the simulator uses standard gravity, a 0.001 relative difference.
+    for (let k = 0; k < 3; k++) {
+      expect(Math.abs(accel.offset![k] - offset[k])).toBeLessThan(0.03);
+      expect(Math.abs(accel.scale![k] - scale[k])).toBeLessThan(0.004);
+    }
+  });
+
+  test.each([
+    { label: "8° off square warns", tiltDeg: 8, status: "warn" },
+    { label: "20° off square fails", tiltDeg: 20, status: "fail" },
+  ])("a tilted pose is flagged: $label", ({ tiltDeg, status }) => {
+    const { analysis } = analyse({ holds: { faces: SIX, tiltDeg } });
+    expect(find(analysis.checks, "accel.tilt", "accel0").status).toBe(status);
+  });
+
+  test("a wobbly pose is flagged", () => {
+    const { analysis } = analyse({ holds: { faces: SIX, wobbleDeg: 1 } });
+    const wobble = find(analysis.checks, "accel.wobble", "accel0");
+    expect(["warn", "fail"]).toContain(wobble.status);
+    expect(analysis.diagnosis.map((d) => d.id)).toContain("accel-holds-unsteady");
+  });
+
+  test("missing faces are named", () => {
+    const { analysis } = analyse({ holds: { faces: ["+z", "-z", "+x", "+y"] } });
+    expect(analysis.accelerometer!.missingFaces).toEqual(["-x", "-y"]);
+    const faces = find(analysis.checks, "accel.faces", "accel0");
+    expect(faces.status).toBe("fail");
+    expect(faces.explanation).toMatch(/nose up/);
+    expect(faces.explanation).toMatch(/on its left side/);
+    expect(find(analysis.checks, "accel.fit", "accel0").status).toBe("fail");
+  });
+});

@@ -107,11 +107,20 @@ export function solveQuadric(scatter: Float64Array, model: MagModel): number[] |
   if (quad.length === 1) {
     quadratic = [1];
   } else {
+    // The solution is the eigenvector with the single positive eigenvalue. Noise-free data
+    // make that eigenvalue zero (a perfect fit) and round-off may tip it negative, so take
+    // the largest real eigenvalue among eigenvectors that satisfy the constraint (vᵀCv > 0).
+    const constraint = reduceConstraint(quad);
     const eig = new EigenvalueDecomposition(system);
     const values = eig.realEigenvalues;
-    let best = 0;
-    for (let i = 1; i < values.length; i++) if (values[i] > values[best]) best = i;
-    if (!(values[best] > 0)) return null;
+    let best = -1;
+    for (let i = 0; i < values.length; i++) {
+      if (Math.abs(eig.imaginaryEigenvalues[i]) > EPSILON * Math.max(1, Math.abs(values[i]))) continue;
+      const v = Matrix.columnVector(eig.eigenvectorMatrix.getColumn(i));
+      if (!(v.transpose().mmul(constraint).mmul(v).get(0, 0) > 0)) continue;
+      if (best < 0 || values[i] > values[best]) best = i;
+    }
+    if (best < 0) return null;
     quadratic = eig.eigenvectorMatrix.getColumn(best);
   }
   const linear = eliminate.mmul(Matrix.columnVector(quadratic)).to1DArray().map((v) => -v);

@@ -1,0 +1,54 @@
+import { describe, expect, test } from "vitest";
+import { accumulateQuadricScatter, normalisationOf, selectedCount } from "@/geometry/normal-equations";
+import type { Vec3Series } from "@/geometry/types";
+
+const series: Vec3Series = {
+  x: Float64Array.from([1, 4, -2, 0.5, 3]),
+  y: Float64Array.from([2, -1, 0, 1.5, 2]),
+  z: Float64Array.from([0, 3, 1, -1, 2]),
+};
+
+/** The design row D of a normalised point, written out from the definition in normal-equations.ts. */
+const designRow = (u: number, v: number, w: number) => [u * u, v * v, w * w, 2 * v * w, 2 * u * w, 2 * u * v, 2 * u, 2 * v, 2 * w, 1];
+
+describe("selectedCount", () => {
+  test.each([
+    { label: "everything", selection: {}, expected: 5 },
+    { label: "a mask", selection: { mask: Uint8Array.from([1, 0, 1, 0, 1]) }, expected: 3 },
+    { label: "indices with repeats", selection: { indices: Int32Array.from([0, 0, 4]) }, expected: 3 },
+    { label: "indices and a mask", selection: { indices: Int32Array.from([0, 1, 1]), mask: Uint8Array.from([1, 0, 1, 1, 1]) }, expected: 1 },
+  ])("$label", ({ selection, expected }) => {
+    expect(selectedCount(series, selection)).toBe(expected);
+  });
+});
+
+describe("normalisationOf", () => {
+  test("centre is the mean and scale the RMS distance from it (worked by hand for two points)", () => {
+    const two: Vec3Series = { x: Float64Array.from([0, 2]), y: Float64Array.from([0, 0]), z: Float64Array.from([0, 0]) };
+    expect(normalisationOf(two)).toEqual({ centre: [1, 0, 0], scale: 1, count: 2 });
+  });
+
+  test("identical samples give scale 1 instead of 0", () => {
+    const same: Vec3Series = { x: Float64Array.from([5, 5]), y: Float64Array.from([5, 5]), z: Float64Array.from([5, 5]) };
+    expect(normalisationOf(same).scale).toBe(1);
+  });
+});
+
+describe("accumulateQuadricScatter", () => {
+  test.each([
+    { label: "all samples", selection: {} },
+    { label: "masked", selection: { mask: Uint8Array.from([1, 1, 0, 1, 0]) } },
+    { label: "bootstrap indices", selection: { indices: Int32Array.from([4, 4, 1, 0]) } },
+  ])("equals DᵀD built row by row from the definition ($label)", ({ selection }) => {
+    const norm = normalisationOf(series, selection);
+    const scatter = accumulateQuadricScatter(series, norm, selection);
+    const expected = new Float64Array(100);
+    const indices = "indices" in selection && selection.indices ? Array.from(selection.indices) : [0, 1, 2, 3, 4];
+    for (const i of indices) {
+      if ("mask" in selection && selection.mask && selection.mask[i] === 0) continue;
+      const row = designRow((series.x[i] - norm.centre[0]) / norm.scale, (series.y[i] - norm.centre[1]) / norm.scale, (series.z[i] - norm.centre[2]) / norm.scale);
+      for (let r = 0; r < 10; r++) for (let c = 0; c < 10; c++) expected[r * 10 + c] += row[r] * row[c];
+    }
+    for (let k = 0; k < 100; k++) expect(scatter[k]).toBeCloseTo(expected[k], 10);
+  });
+});

@@ -22,10 +22,10 @@ export interface Threshold {
 
 export const THRESHOLDS = {
   "mag.coverage": {
-    warnBelow: 50,
-    failBelow: 30,
+    warnBelow: 75,
+    failBelow: 50,
     unit: "% of cells",
-    source: "common practice, set against simulated captures: a minute's full tumble fills 55–70% of the cells (3 samples each), turning about one axis under 25%",
+    source: "common practice, checked against simulated captures: a minute's full tumble fills every cell (3 samples each), the upper half of the sphere about half, turning about one axis under a quarter",
     basis: "where half the directions were never visited the fit can trade offset against soft iron along the missing ones",
   },
   "mag.gap": {

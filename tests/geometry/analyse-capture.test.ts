@@ -40,7 +40,7 @@ describe("analyseCapture", () => {
     expect(analysis.magnetometers).toHaveLength(2);
     const mag0 = analysis.magnetometers[0];
     for (let k = 0; k < 3; k++) expect(mag0.offset![k]).toBeCloseTo(truth.magnetometers[0].loggedHardIronOffset[k], 0);
-    expect(mag0.coverage!.fraction).toBeGreaterThan(0.5);
+    expect(mag0.coverage!.fraction).toBeGreaterThan(0.75);
     // The accelerometer fitted to WGS 84 normal gravity at the site (NIMA TR8350.2).
     expect(analysis.reference.gravitySource).toMatch(/WGS 84/);
     expect(analysis.accelerometer!.missingFaces).toEqual([]);

@@ -38,7 +38,7 @@ describe("grade", () => {
 describe("describeLimits", () => {
   test.each([
     { label: "above", t: THRESHOLDS["mag.residual"], text: "warn above 2, fail above 5 % of field" },
-    { label: "below", t: THRESHOLDS["mag.coverage"], text: "warn below 50, fail below 30 % of cells" },
+    { label: "below", t: THRESHOLDS["mag.coverage"], text: "warn below 75, fail below 50 % of cells" },
     { label: "range", t: THRESHOLDS["mag.field-plausible"], text: "warn outside 22–67, fail outside 15–100 µT" },
     { label: "fail only", t: THRESHOLDS["accel.faces"], text: "fail above 0 faces missing" },
   ])("$label", ({ t, text }) => {

@@ -1,6 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import { z } from "zod";
+import { userForApiToken } from "@/lib/data/api-tokens";
 import { getWorkspaceAccess } from "@/lib/data/workspaces";
 import { contextFor, getViewer, type WorkspaceContext } from "@/lib/guard";
 import type { Action } from "@/lib/permissions";
@@ -38,12 +39,25 @@ async function guarded(work: () => Promise<Response>): Promise<Response> {
 
 type Params<P> = { params: Promise<P> };
 
+/**
+ * Who is calling: a personal API token (`Authorization: Bearer lox_…`) when one is sent —
+ * and then only that, so a bad token is never rescued by a cookie — else the session cookie.
+ */
+async function callerOf(request: Request): Promise<UserSummary | null> {
+  const authorization = request.headers.get("authorization");
+  if (authorization) {
+    const match = /^Bearer\s+(\S+)$/i.exec(authorization);
+    return match ? userForApiToken(match[1]) : null;
+  }
+  return getViewer();
+}
+
 /** A route handler for any signed-in user: 401 without a session. */
 export function userRoute<P = Record<string, never>>(handler: (request: Request, viewer: UserSummary, params: P) => Promise<Response>) {
   return async (request: Request, { params }: Params<P>) =>
     guarded(async () => {
-      const viewer = await getViewer();
-      if (!viewer) return jsonError(401, "unauthenticated", "Sign in first.");
+      const viewer = await callerOf(request);
+      if (!viewer) return jsonError(401, "unauthenticated", "Sign in first, or send a valid API token.");
       return handler(request, viewer, await params);
     });
 }
@@ -58,8 +72,8 @@ export function workspaceRoute<P extends { slug: string }>(
 ) {
   return async (request: Request, { params }: Params<P>) =>
     guarded(async () => {
-      const viewer = await getViewer();
-      if (!viewer) return jsonError(401, "unauthenticated", "Sign in first.");
+      const viewer = await callerOf(request);
+      if (!viewer) return jsonError(401, "unauthenticated", "Sign in first, or send a valid API token.");
       const resolved = await params;
       const access = await getWorkspaceAccess(viewer.id, resolved.slug);
       if (!access) return jsonError(404, "not-found", "Not found.");

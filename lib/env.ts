@@ -29,6 +29,17 @@ export const smtp = {
   from: process.env.MAIL_FROM ?? "Loxodrome <no-reply@loxodrome.invalid>",
 };
 
+/** Object storage; the defaults match the local s3rver fake (scripts/s3-fake.ts). */
+export const storage = {
+  endpoint: process.env.S3_ENDPOINT ?? `http://127.0.0.1:${process.env.S3_PORT ?? 4569}`,
+  publicEndpoint: process.env.S3_PUBLIC_ENDPOINT ?? process.env.S3_ENDPOINT ?? `http://127.0.0.1:${process.env.S3_PORT ?? 4569}`,
+  region: process.env.S3_REGION ?? "us-east-1",
+  bucket: process.env.S3_BUCKET ?? "loxodrome",
+  accessKeyId: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
+  secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
+  forcePathStyle: process.env.S3_FORCE_PATH_STYLE !== "0",
+};
+
 /** Where the local SMTP sink stores what it receives (one JSON file per message). */
 export const mailSinkDir = process.env.MAIL_SINK_DIR ?? path.join(dataDir, "mail");
 

@@ -16,6 +16,7 @@ export const ACTIONS = [
   "audit.view",
   "vehicle.view",
   "vehicle.edit",
+  "site.edit",
   "run.view",
   "run.create",
   "run.edit",
@@ -44,7 +45,7 @@ const sharedOnly: Rule = (_actorId, resource) => resource === undefined || resou
 const MATRIX: Record<Role, Partial<Record<Action, Rule>>> = {
   owner: Object.fromEntries(
     ["workspace.view", "workspace.update", "member.list", "member.invite", "member.change-role", "member.remove", "audit.view",
-      "vehicle.view", "vehicle.edit", "run.view", "run.create", "run.edit", "run.sign-off",
+      "vehicle.view", "vehicle.edit", "site.edit", "run.view", "run.create", "run.edit", "run.sign-off",
       "class.view", "class.host", "class.join", "scenario.manage", "demo.manage", "shared.view"].map((a) => [a, true]),
   ),
   technician: {
@@ -53,6 +54,7 @@ const MATRIX: Record<Role, Partial<Record<Action, Rule>>> = {
     "audit.view": true,
     "vehicle.view": true,
     "vehicle.edit": true,
+    "site.edit": true,
     "run.view": true,
     "run.create": true,
     "run.edit": true,
@@ -66,6 +68,7 @@ const MATRIX: Record<Role, Partial<Record<Action, Rule>>> = {
     "member.list": true,
     "vehicle.view": true,
     "vehicle.edit": createdBySelf,
+    "site.edit": true,
     "run.view": true,
     "run.create": true,
     "run.edit": createdBySelf,

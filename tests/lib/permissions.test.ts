@@ -16,6 +16,7 @@ const DOCUMENTED: Record<Action, Role[]> = {
   "audit.view": ["owner", "technician"],
   "vehicle.view": ["owner", "technician", "builder", "instructor"],
   "vehicle.edit": ["owner", "technician", "builder"],
+  "site.edit": ["owner", "technician", "builder"],
   "run.view": ["owner", "technician", "builder", "instructor", "student"],
   "run.create": ["owner", "technician", "builder"],
   "run.edit": ["owner", "technician", "builder"],

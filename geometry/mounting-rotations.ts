@@ -19,14 +19,17 @@ function nameOf(roll: number, pitch: number, yaw: number): string {
   return parts.length ? parts.join(" ") : "none";
 }
 
+const EXACT = [0, 1, -1, Math.SQRT1_2, -Math.SQRT1_2];
+/** Right angles and 45° give entries 0, ±1 and ±√½ exactly; remove the round-off of sin and cos. */
+const snap = (v: number) => EXACT.find((e) => Math.abs(v - e) < 1e-12) ?? v;
+
 function enumerate(): MountingRotation[] {
   const candidates: { name: string; matrix: Mat3; steps: number; total: number }[] = [];
   for (const roll of [0, 90, 180, 270]) {
     for (const pitch of [0, 90, 180, 270]) {
       for (let yaw = 0; yaw < 360; yaw += 45) {
         const matrix = mulMat(rotationZ(yaw), mulMat(rotationY(pitch), rotationX(roll)));
-        // Snap round-off so right angles give exact 0, ±1 (and ±√½) entries.
-        const clean = matrix.map((row) => row.map((v) => Math.round(v * 1e12) / 1e12)) as Mat3;
+        const clean = matrix.map((row) => row.map(snap)) as Mat3;
         candidates.push({ name: nameOf(roll, pitch, yaw), matrix: clean, steps: +!!roll + +!!pitch + +!!yaw, total: roll + pitch + yaw });
       }
     }

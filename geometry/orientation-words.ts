@@ -6,17 +6,18 @@
  * towards magnetic north and down at northern mid-latitudes (up in the southern
  * hemisphere), at the inclination (dip) angle below the horizon. So the first sentence names
  * the body direction to aim along the field ("the nose and left side"); the second gives one
- * attitude that does it: starting level with the nose towards magnetic north, the smallest
- * rotation that brings g onto the field, said as a turn, then a pitch, then a roll (the
- * yaw–pitch–roll sequence), rounded to 5° and leaving out steps under 10°. Any heading
- * about the field line works as well; the smallest rotation is merely the easiest to say.
+ * attitude that does it, said from level with the nose towards magnetic north as a turn,
+ * then a pitch, then a roll (the yaw–pitch–roll sequence), rounded to 5° and leaving out
+ * steps under 10°. Any turn about the field line keeps g on it, so among those attitudes
+ * (searched in 5° steps) the one with the least pitch and roll is offered — a change of
+ * heading counts a quarter, being the easiest move for a person holding the vehicle.
  *
  * Assumes the samples are in the body frame (x forward, y right, z down), i.e. the
  * compass's mounting rotation has been applied.
  */
-import { minimalRotation, toYawPitchRoll } from "./rotation";
+import { fromAxisAngle, minimalRotation, toYawPitchRoll } from "./rotation";
 import type { Vec3 } from "./types";
-import { DEG, normalize } from "./vector";
+import { DEG, mulMat, normalize } from "./vector";
 
 /** Gaps narrower than this need no further turning (about one coverage cell). */
 export const GAP_WORTH_FILLING_DEG = 15;
@@ -48,6 +49,30 @@ export function bodyDirectionWords(direction: Vec3): string {
 const round5 = (deg: number) => Math.round(deg / 5) * 5;
 
 /**
+ * Yaw, pitch and roll (degrees, R = Rz·Ry·Rx from level with the nose towards magnetic
+ * north) of an attitude that points body direction `target` along the Earth's field of dip
+ * `inclinationDeg`. Every turn about the field line keeps the target on it; the one with
+ * the least pitch and roll is chosen, a change of heading counting a quarter.
+ */
+export function suggestAttitude(target: Vec3, inclinationDeg = DEFAULT_INCLINATION_DEG): { yawDeg: number; pitchDeg: number; rollDeg: number } {
+  const dip = inclinationDeg * DEG;
+  // The field in the magnetic north–east–down frame.
+  const field: Vec3 = [Math.cos(dip), 0, Math.sin(dip)];
+  const base = minimalRotation(target, field);
+  let attitude = toYawPitchRoll(base);
+  let cost = Infinity;
+  for (let spinDeg = 0; spinDeg < 360; spinDeg += 5) {
+    const candidate = toYawPitchRoll(mulMat(fromAxisAngle(field, spinDeg * DEG), base));
+    const c = Math.abs(candidate.yawDeg) / 4 + Math.abs(candidate.pitchDeg) + Math.abs(candidate.rollDeg);
+    if (c < cost - 1e-9) {
+      cost = c;
+      attitude = candidate;
+    }
+  }
+  return attitude;
+}
+
+/**
  * A sentence or two saying how to turn the vehicle next, for a coverage gap of angular
  * radius `largestGapDeg` centred on body direction `gapCentre`. `inclinationDeg` is the
  * site's dip, positive down.
@@ -56,15 +81,12 @@ export function describeNextOrientation(gapCentre: Vec3, largestGapDeg: number, 
   if (largestGapDeg < GAP_WORTH_FILLING_DEG) {
     return `No gap wider than ${GAP_WORTH_FILLING_DEG}° is left: the turns so far cover every direction.`;
   }
-  const dip = inclinationDeg * DEG;
-  // The field in the magnetic north–east–down frame.
-  const field: Vec3 = [Math.cos(dip), 0, Math.sin(dip)];
   const vertical = inclinationDeg >= 0 ? "below" : "above";
   const aim =
     `Aim ${bodyDirectionWords(gapCentre)} of the vehicle along the Earth's field ` +
     `(towards magnetic north, about ${Math.abs(round5(inclinationDeg))}° ${vertical} the horizon) ` +
-    `to fill a gap about ${Math.round(largestGapDeg)}° wide in radius.`;
-  const attitude = toYawPitchRoll(minimalRotation(gapCentre, field));
+    `to fill a gap about ${Math.round(largestGapDeg)}° in radius.`;
+  const attitude = suggestAttitude(gapCentre, inclinationDeg);
   const steps: string[] = [];
   const yaw = round5(attitude.yawDeg);
   const pitch = round5(attitude.pitchDeg);

@@ -27,6 +27,21 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S)
   return { ok: false, response: jsonError(400, "invalid", "Some fields need attention.", { fields }) };
 }
 
+/** Validate the query string; the error names each offending parameter. */
+export function readQuery<S extends z.ZodType>(request: Request, schema: S): { ok: true; data: z.infer<S> } | { ok: false; response: Response } {
+  const params = Object.fromEntries(new URL(request.url).searchParams.entries());
+  const result = schema.safeParse(params);
+  if (result.success) return { ok: true, data: result.data };
+  const fields: Record<string, string> = {};
+  for (const issue of result.error.issues) fields[issue.path.join(".") || "query"] ??= issue.message;
+  return { ok: false, response: jsonError(400, "invalid", "Some query parameters need attention.", { fields }) };
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export const notFound = () => jsonError(404, "not-found", "Not found.");
+export const forbidden = () => jsonError(403, "forbidden", "Your role in this workspace does not allow this.");
+
 async function guarded(work: () => Promise<Response>): Promise<Response> {
   try {
     return await work();
@@ -75,6 +90,8 @@ export function workspaceRoute<P extends { slug: string }>(
       const viewer = await callerOf(request);
       if (!viewer) return jsonError(401, "unauthenticated", "Sign in first, or send a valid API token.");
       const resolved = await params;
+      // Ids in the path are UUIDs; anything else cannot name a row, so it is simply not found.
+      for (const [key, value] of Object.entries(resolved)) if (key.endsWith("Id") && !UUID.test(String(value))) return notFound();
       const access = await getWorkspaceAccess(viewer.id, resolved.slug);
       if (!access) return jsonError(404, "not-found", "Not found.");
       const context = contextFor(viewer, access);

@@ -1,5 +1,15 @@
 import { z } from "zod";
+import { parseUnitForKind, type QuantityKind } from "@/geometry/units";
 import { MODEL_CHOICES, RUN_STATUSES, UPLOAD_LIMITS, VERDICTS } from "@/lib/fleet-terms";
+
+function unitText(kind: QuantityKind) {
+  return z
+    .string()
+    .trim()
+    .max(40)
+    .refine((text) => parseUnitForKind(text, kind) !== null, `"${kind}" unit not recognised (for example uT, m/s2, deg/s, ms, counts:0.15).`)
+    .optional();
+}
 
 const FIELD_PATTERN = /^(time|current|throttle|ignore|(mag|accel|gyro)\d\.[xyz])$/;
 
@@ -23,14 +33,14 @@ export const createRunSchema = z.object({
   columnMapping: z
     .record(z.string().max(120), z.string().regex(FIELD_PATTERN, "Map columns to time, current, throttle, ignore or a sensor axis such as mag0.x."))
     .default({}),
+  /** Units per quantity as written by the logger: "uT", "nT", "mG", "G", "m/s2", "g", "deg/s", "rad/s", "ms", or "counts:0.15". */
   units: z
     .object({
-      field: z.enum(["uT", "nT", "mG", "G", "counts"]).optional(),
-      fieldCountsPerUnit: z.number().positive().optional(),
-      accel: z.enum(["m/s2", "g", "counts"]).optional(),
-      accelCountsPerUnit: z.number().positive().optional(),
-      rate: z.enum(["rad/s", "deg/s", "counts"]).optional(),
-      rateCountsPerUnit: z.number().positive().optional(),
+      magnetic: unitText("magnetic"),
+      acceleration: unitText("acceleration"),
+      rate: unitText("rate"),
+      time: unitText("time"),
+      current: unitText("current"),
     })
     .default({}),
   /** Capture slot ("mag0", "accel0", …) → the vehicle's sensor logged in it. */

@@ -208,6 +208,20 @@ const MODEL_COLUMNS: Record<MagModel, number[][]> = {
   full: [[0], [1], [2], [3], [4], [5], [6], [7], [8]],
 };
 
+/** δᵀ·JᵀJ·δ for a step of the model's parameters. */
+function curvatureNorm(model: MagModel, step: Float64Array): number {
+  const columns = MODEL_COLUMNS[model];
+  let sum = 0;
+  for (let i = 0; i < columns.length; i++) {
+    for (let j = 0; j < columns.length; j++) {
+      let h = 0;
+      for (const ci of columns[i]) for (const cj of columns[j]) h += jtj[ci * 9 + cj];
+      sum += step[i] * h * step[j];
+    }
+  }
+  return sum;
+}
+
 const system = new Float64Array(81);
 const rhs = new Float64Array(9);
 
@@ -304,8 +318,13 @@ function iterate(
       largest = Math.max(largest, Math.abs(p[i]));
       stepSize = Math.max(stepSize, Math.abs(step[i]));
     }
-    // Parameters are O(1) in normalised coordinates: a step this small changes nothing measurable.
-    if (stepSize < 1e-10 * largest) {
+    // Converged when the step is a hundredth of the estimate's own standard error: its
+    // length in the metric of JᵀJ, over the residual variance (Mahalanobis distance). A
+    // relative-gain test alone would stop too early on long captures, where a tiny gain is
+    // still many standard errors. Parameters are O(1) here, so 1e-10 is round-off.
+    const variance = current.cost / Math.max(1, current.count - p.length);
+    // (Only for near Gauss–Newton steps: heavy damping shrinks a step without it being done.)
+    if (stepSize < 1e-10 * largest || (lambda <= 1e-2 && curvatureNorm(model, step) < 1e-4 * variance)) {
       converged = true;
       break;
     }
@@ -318,8 +337,7 @@ function iterate(
       current = next;
       linearisedAtCurrent = false;
       lambda = Math.max(lambda / 10, 1e-12);
-      // A relative gain this small moves the parameters by ~1e-4 of their noise.
-      if (gain <= 1e-8 * current.cost || stepSize < 1e-8 * largest) {
+      if (gain <= 1e-12 * current.cost) {
         converged = true;
         break;
       }

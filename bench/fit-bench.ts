@@ -1,0 +1,125 @@
+/**
+ * Ellipsoid-fit benchmark: samples per second and peak memory for 10k, 100k and 1M samples.
+ * Run alone with `npx tsx bench/fit-bench.ts`, or through `npm run bench` (bench/run.ts calls
+ * `benchEllipsoidFit()`).
+ *
+ * Steps, each measured in a fresh child process so that its peak resident memory (the
+ * kernel's maxRSS) is its own; "above data" is that peak minus the peak of a child that
+ * only builds the samples:
+ * - algebraic: the one-pass normal equations and the constrained fit (full model);
+ * - fit: algebraic fit plus geometric refinement (full model) — the figure the "1,000,000
+ *   samples well under a second" goal is about;
+ * - fit, cold: the same without first running it on another capture, so the time includes
+ *   the JIT compiling the hot loops;
+ * - calibrate: the whole calibrateMagnetometer (support check, outlier rejection, three
+ *   models, saturation, coverage) without and with the bootstrap.
+ * Samples: an ellipsoid with strong soft iron, 48 µT field, 0.5 µT noise, directions uniform
+ * on the sphere (invented data).
+ */
+import { spawnSync } from "node:child_process";
+import path from "node:path";
+import { calibrateMagnetometer } from "@/geometry/calibrate-magnetometer";
+import { fitEllipsoidAlgebraic } from "@/geometry/ellipsoid-fit";
+import { fitMagModel } from "@/geometry/magnetometer-models";
+import { createRandom } from "@/geometry/random";
+import type { Vec3Series } from "@/geometry/types";
+
+const SIZES = [10_000, 100_000, 1_000_000];
+const STEPS = ["data", "algebraic", "fit", "fit-cold", "calibrate-no-bootstrap", "calibrate"] as const;
+type Step = (typeof STEPS)[number];
+const LABELS: Record<Step, string> = {
+  data: "data only",
+  algebraic: "algebraic",
+  fit: "fit",
+  "fit-cold": "fit, cold",
+  "calibrate-no-bootstrap": "calibrate, no bootstrap",
+  calibrate: "calibrate",
+};
+
+interface Measurement {
+  step: Step;
+  samples: number;
+  seconds: number;
+  peakRssMiB: number;
+}
+
+function samples(n: number, seed = 1): Vec3Series {
+  const random = createRandom(seed);
+  const s = [
+    [1.18, 0.06, -0.04],
+    [0.06, 0.86, 0.08],
+    [-0.04, 0.08, 1.05],
+  ];
+  const out: Vec3Series = { x: new Float64Array(n), y: new Float64Array(n), z: new Float64Array(n) };
+  for (let i = 0; i < n; i++) {
+    const gx = random.gaussian();
+    const gy = random.gaussian();
+    const gz = random.gaussian();
+    const k = 48 / Math.hypot(gx, gy, gz);
+    const u = [gx * k, gy * k, gz * k];
+    out.x[i] = s[0][0] * u[0] + s[0][1] * u[1] + s[0][2] * u[2] + 30 + random.gaussian(0, 0.5);
+    out.y[i] = s[1][0] * u[0] + s[1][1] * u[1] + s[1][2] * u[2] - 12 + random.gaussian(0, 0.5);
+    out.z[i] = s[2][0] * u[0] + s[2][1] * u[1] + s[2][2] * u[2] + 55 + random.gaussian(0, 0.5);
+  }
+  return out;
+}
+
+function runStep(step: Step, series: Vec3Series): void {
+  if (step === "algebraic") {
+    if (!fitEllipsoidAlgebraic(series, "full").ok) throw new Error("algebraic fit failed");
+  } else if (step === "fit" || step === "fit-cold") {
+    if (!fitMagModel(series, "full").ok) throw new Error("fit failed");
+  } else if (step === "calibrate" || step === "calibrate-no-bootstrap") {
+    if (!calibrateMagnetometer(series, { bootstrap: step === "calibrate" }).ok) throw new Error("calibration refused");
+  }
+}
+
+/**
+ * Child: build the samples, warm up on another set of up to 100,000 (except the cold step, so
+ * that the compiled code has seen the long-capture paths too), then time one run.
+ */
+function measure(step: Step, n: number): Measurement {
+  if (step !== "fit-cold" && step !== "data") runStep(step, samples(Math.min(n, 100_000), 2));
+  const series = samples(n);
+  const start = performance.now();
+  runStep(step, series);
+  const seconds = (performance.now() - start) / 1000;
+  return { step, samples: n, seconds, peakRssMiB: process.resourceUsage().maxRSS / 1024 };
+}
+
+function thisFile(): string {
+  // Run alone, argv[1] is this file; imported by bench/run.ts, it is that file beside this one.
+  const invoked = process.argv[1] ?? "";
+  return path.basename(invoked).startsWith("fit-bench") ? invoked : path.resolve(path.dirname(invoked), "fit-bench.ts");
+}
+
+function runChild(step: Step, n: number): Measurement {
+  const child = spawnSync(process.execPath, ["--import", "tsx", thisFile(), "--fit-child", step, String(n)], { encoding: "utf8", maxBuffer: 1 << 20 });
+  if (child.status !== 0) throw new Error(`fit bench step ${step} on ${n} samples failed:\n${child.stderr}`);
+  return JSON.parse(child.stdout) as Measurement;
+}
+
+const pad = (text: string, width: number) => (text.length >= width ? text : " ".repeat(width - text.length) + text);
+
+/** Prints the table of samples/s and peak memory per step and size; returns nothing. */
+export function benchEllipsoidFit(): void {
+  process.stdout.write(`node ${process.version}, one core, each row a fresh process\n`);
+  process.stdout.write(`${pad("step", 24)} ${pad("samples", 10)} ${pad("seconds", 9)} ${pad("samples/s", 12)} ${pad("peak MiB", 9)} ${pad("above data", 11)}\n`);
+  for (const n of SIZES) {
+    const data = runChild("data", n);
+    for (const step of STEPS) {
+      const m = step === "data" ? data : runChild(step, n);
+      const isData = step === "data";
+      process.stdout.write(
+        `${pad(LABELS[step], 24)} ${pad(n.toLocaleString("en-GB"), 10)} ${pad(isData ? "" : m.seconds.toFixed(3), 9)} ${pad(isData ? "" : Math.round(n / m.seconds).toLocaleString("en-GB"), 12)} ${pad(m.peakRssMiB.toFixed(0), 9)} ${pad(isData ? "" : (m.peakRssMiB - data.peakRssMiB).toFixed(0), 11)}\n`,
+      );
+    }
+  }
+}
+
+const childAt = process.argv.indexOf("--fit-child");
+if (childAt >= 0) {
+  process.stdout.write(JSON.stringify(measure(process.argv[childAt + 1] as Step, Number(process.argv[childAt + 2]))));
+} else if (path.basename(process.argv[1] ?? "").startsWith("fit-bench")) {
+  benchEllipsoidFit();
+}

@@ -94,7 +94,10 @@ function thisFile(): string {
 }
 
 function runChild(step: Step, n: number): Measurement {
-  const child = spawnSync(process.execPath, ["--import", "tsx", thisFile(), "--fit-child", step, String(n)], { encoding: "utf8", maxBuffer: 1 << 20 });
+  const child = spawnSync(process.execPath, ["--import", "tsx", thisFile(), "--fit-child", step, String(n)], {
+    encoding: "utf8",
+    maxBuffer: 1 << 20,
+  });
   if (child.status !== 0) throw new Error(`fit bench step ${step} on ${n} samples failed:\n${child.stderr}`);
   return JSON.parse(child.stdout) as Measurement;
 }
@@ -104,7 +107,9 @@ const pad = (text: string, width: number) => (text.length >= width ? text : " ".
 /** Prints the table of samples/s and peak memory per step and size; returns nothing. */
 export function benchEllipsoidFit(): void {
   process.stdout.write(`node ${process.version}, one core, each row a fresh process\n`);
-  process.stdout.write(`${pad("step", 24)} ${pad("samples", 10)} ${pad("seconds", 9)} ${pad("samples/s", 12)} ${pad("peak MiB", 9)} ${pad("above data", 11)}\n`);
+  process.stdout.write(
+    `${pad("step", 24)} ${pad("samples", 10)} ${pad("seconds", 9)} ${pad("samples/s", 12)} ${pad("peak MiB", 9)} ${pad("above data", 11)}\n`,
+  );
   for (const n of SIZES) {
     const data = runChild("data", n);
     for (const step of STEPS) {

@@ -68,7 +68,17 @@ function finiteMask(field: Vec3Series): { mask: Uint8Array; count: number } {
 function roughCoverage(field: Vec3Series, eligible: Uint8Array, options: CalibrateMagnetometerOptions): CoverageResult | undefined {
   const rough = fitEllipsoidAlgebraic(field, "sphere", { mask: eligible });
   const centre = rough.ok ? rough.estimate.hardIronOffset : normalisationOf(field, { mask: eligible }).centre;
-  const shifted = applyCorrection({ hardIronOffset: centre, softIronMatrix: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }, field);
+  const shifted = applyCorrection(
+    {
+      hardIronOffset: centre,
+      softIronMatrix: [
+        [1, 0, 0],
+        [0, 1, 0],
+        [0, 0, 1],
+      ],
+    },
+    field,
+  );
   return sphereCoverage(shifted, { mask: eligible, minSamplesPerCell: options.minSamplesPerCell, inclinationDeg: options.inclinationDeg });
 }
 
@@ -104,7 +114,12 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
   const largestModel: MagModel = choice === "auto" ? "full" : choice;
   const support = checkFitSupport(field, eligible, SAMPLES_PER_PARAMETER * MODEL_PARAMETER_COUNT[largestModel]);
   if (!support.ok) {
-    return { ok: false, reason: support.reason, detail: support.detail, coverage: finite > 0 ? roughCoverage(field, eligible, options) : undefined };
+    return {
+      ok: false,
+      reason: support.reason,
+      detail: support.detail,
+      coverage: finite > 0 ? roughCoverage(field, eligible, options) : undefined,
+    };
   }
 
   const robust = robustFit(field, eligible, ["full", "axis", "sphere"]);
@@ -119,7 +134,12 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
   const { inliers, outliersRejected } = robust.robust;
   const chosen = chooseMagModel(field, choice, { mask: inliers }, [robust.robust.fit]);
   if (!chosen.ok) {
-    return { ok: false, reason: "not-an-ellipsoid", detail: `The ${choice} model could not be fitted: ${chosen.detail}.`, coverage: roughCoverage(field, eligible, options) };
+    return {
+      ok: false,
+      reason: "not-an-ellipsoid",
+      detail: `The ${choice} model could not be fitted: ${chosen.detail}.`,
+      coverage: roughCoverage(field, eligible, options),
+    };
   }
   const { estimate, residualRms, samples } = chosen.choice.chosen;
   const scales = ellipsoidScales(estimate.softIronMatrix);
@@ -128,7 +148,13 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
   let scaleInterval95: [Interval95, Interval95, Interval95];
   let bootstrapResamples = 0;
   if (options.bootstrap ?? true) {
-    const boot = bootstrapIntervals(field, estimate.model, inliers, { offset: estimate.hardIronOffset, scales, start: estimate }, { seed: options.seed ?? 1 });
+    const boot = bootstrapIntervals(
+      field,
+      estimate.model,
+      inliers,
+      { offset: estimate.hardIronOffset, scales, start: estimate },
+      { seed: options.seed ?? 1 },
+    );
     offsetInterval95 = boot.offsetInterval95;
     scaleInterval95 = boot.scaleInterval95;
     bootstrapResamples = boot.resamples;
@@ -157,7 +183,11 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
     bootstrapResamples,
     candidates: chosen.choice.candidates.map(toCandidate),
     saturation: analyseSaturation(field, eligible),
-    coverage: sphereCoverage(corrected, { mask: inliers, minSamplesPerCell: options.minSamplesPerCell, inclinationDeg: options.inclinationDeg }),
+    coverage: sphereCoverage(corrected, {
+      mask: inliers,
+      minSamplesPerCell: options.minSamplesPerCell,
+      inclinationDeg: options.inclinationDeg,
+    }),
   };
   return calibration;
 }

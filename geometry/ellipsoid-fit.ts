@@ -20,13 +20,7 @@
  */
 import { EigenvalueDecomposition, Matrix, inverse } from "ml-matrix";
 import type { MagModel } from "./magnetometer-types";
-import {
-  QUADRIC_TERMS,
-  accumulateQuadricScatter,
-  normalisationOf,
-  type Normalisation,
-  type SampleSelection,
-} from "./normal-equations";
+import { QUADRIC_TERMS, accumulateQuadricScatter, normalisationOf, type Normalisation, type SampleSelection } from "./normal-equations";
 import type { Mat3, Vec3, Vec3Series } from "./types";
 import { EPSILON, add, det3, fromMatrix, inverse3, mulMatVec, scale, scaleMat, symmetrize3, toMatrix } from "./vector";
 
@@ -123,7 +117,10 @@ export function solveQuadric(scatter: Float64Array, model: MagModel): number[] |
     if (best < 0) return null;
     quadratic = eig.eigenvectorMatrix.getColumn(best);
   }
-  const linear = eliminate.mmul(Matrix.columnVector(quadratic)).to1DArray().map((v) => -v);
+  const linear = eliminate
+    .mmul(Matrix.columnVector(quadratic))
+    .to1DArray()
+    .map((v) => -v);
   const full = new Array<number>(QUADRIC_TERMS).fill(0);
   quad.forEach((terms, i) => terms.forEach((t) => (full[t] += quadratic[i])));
   LINEAR_TERMS.forEach((terms, i) => (full[terms[0]] = linear[i]));
@@ -190,7 +187,10 @@ export function quadricToEllipsoid(coefficients: number[], model: MagModel, norm
 export function fitEllipsoidAlgebraic(series: Vec3Series, model: MagModel, selection: SampleSelection = {}): AlgebraicFitResult {
   const normalisation = normalisationOf(series, selection);
   if (normalisation.count < MODEL_PARAMETER_COUNT[model] + 1) {
-    return { ok: false, detail: `${normalisation.count} samples cannot fix the ${MODEL_PARAMETER_COUNT[model]} parameters of the ${model} model` };
+    return {
+      ok: false,
+      detail: `${normalisation.count} samples cannot fix the ${MODEL_PARAMETER_COUNT[model]} parameters of the ${model} model`,
+    };
   }
   const scatter = accumulateQuadricScatter(series, normalisation, selection);
   const coefficients = solveQuadric(scatter, model);

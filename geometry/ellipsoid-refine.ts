@@ -12,7 +12,8 @@
  * ∂r/∂M_kl = n_k d_l + n_l d_k with d = u − b, n = M d / |M d|; the smaller models sum its
  * columns (a scalar M moves all three diagonal entries together).
  *
- * No N×9 Jacobian is stored: every pass streams the samples and sums what it needs.
+ * No N×9 Jacobian is stored: every pass streams the samples and sums what it needs
+ * (normal-equations.ts).
  * Captures longer than twice `subsampleLimit` first iterate on an evenly strided subsample;
  * the steps that follow take their gradient and cost from every sample and their
  * curvature JᵀJ from the subsample (scaled to the full count) — an inexact Gauss–Newton step
@@ -21,7 +22,14 @@
  */
 import type { EllipsoidEstimate } from "./ellipsoid-fit";
 import type { MagModel } from "./magnetometer-types";
-import { normalisationOf, type Normalisation, type SampleSelection } from "./normal-equations";
+import {
+  normalisationOf,
+  sumRadialCost,
+  sumRadialNormalEquations,
+  type Normalisation,
+  type RadialSums,
+  type SampleSelection,
+} from "./normal-equations";
 import type { Mat3, Vec3, Vec3Series } from "./types";
 import { EPSILON, det3, scaleMat, sub } from "./vector";
 
@@ -42,16 +50,11 @@ export interface RefineResult {
 
 const PARAMETERS: Record<MagModel, number> = { sphere: 4, axis: 6, full: 9 };
 
-/** Normal equations of the full 9-parameter model: order b0 b1 b2 m00 m11 m22 m12 m02 m01. */
+/** Normal equations of the full 9-parameter model (order in normal-equations.ts). */
 const jtj = new Float64Array(81);
 const jtr = new Float64Array(9);
 /** The symmetric matrix M of the current parameters, as m00 m11 m22 m12 m02 m01. */
 const shape = new Float64Array(6);
-
-interface Sums {
-  cost: number;
-  count: number;
-}
 
 function loadShape(model: MagModel, p: Float64Array): void {
   if (model === "sphere") {
@@ -61,144 +64,6 @@ function loadShape(model: MagModel, p: Float64Array): void {
   } else {
     shape.set(p.subarray(3, 9));
   }
-}
-
-/** Sum of squared radial residuals at offset p[0..2] and the loaded shape. Allocation-free. */
-function sumCost(series: Vec3Series, norm: Normalisation, p: Float64Array, selection: SampleSelection): Sums {
-  const { x, y, z } = series;
-  const { mask, indices } = selection;
-  const total = indices ? indices.length : x.length;
-  const inv = 1 / norm.scale;
-  const cx = norm.centre[0] + p[0] * norm.scale;
-  const cy = norm.centre[1] + p[1] * norm.scale;
-  const cz = norm.centre[2] + p[2] * norm.scale;
-  const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
-  let cost = 0;
-  let count = 0;
-  for (let k = 0; k < total; k++) {
-    const i = indices ? indices[k] : k;
-    if (mask && mask[i] === 0) continue;
-    const d0 = (x[i] - cx) * inv;
-    const d1 = (y[i] - cy) * inv;
-    const d2 = (z[i] - cz) * inv;
-    const v0 = m00 * d0 + m01 * d1 + m02 * d2;
-    const v1 = m01 * d0 + m11 * d1 + m12 * d2;
-    const v2 = m02 * d0 + m12 * d1 + m22 * d2;
-    const r = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2) - 1;
-    cost += r * r;
-    count++;
-  }
-  return { cost, count };
-}
-
-/**
- * Cost and gradient Jᵀr of the full model (into `jtr`), and the curvature JᵀJ (into `jtj`)
- * when asked. Every sum lives in a local (the 45 of the upper triangle of JᵀJ written out)
- * because this is the innermost loop of the fit and of every bootstrap refit; locals stay in
- * registers where typed-array updates would not. Allocation-free.
- */
-function sumNormalEquations(
-  series: Vec3Series,
-  norm: Normalisation,
-  p: Float64Array,
-  selection: SampleSelection,
-  withCurvature: boolean,
-): Sums {
-  const { x, y, z } = series;
-  const { mask, indices } = selection;
-  const total = indices ? indices.length : x.length;
-  const inv = 1 / norm.scale;
-  const cx = norm.centre[0] + p[0] * norm.scale;
-  const cy = norm.centre[1] + p[1] * norm.scale;
-  const cz = norm.centre[2] + p[2] * norm.scale;
-  const m00 = shape[0], m11 = shape[1], m22 = shape[2], m12 = shape[3], m02 = shape[4], m01 = shape[5];
-  let g0 = 0, g1 = 0, g2 = 0, g3 = 0, g4 = 0, g5 = 0, g6 = 0, g7 = 0, g8 = 0;
-  // prettier-ignore
-  let h00 = 0, h01 = 0, h02 = 0, h03 = 0, h04 = 0, h05 = 0, h06 = 0, h07 = 0, h08 = 0,
-    h11 = 0, h12 = 0, h13 = 0, h14 = 0, h15 = 0, h16 = 0, h17 = 0, h18 = 0,
-    h22 = 0, h23 = 0, h24 = 0, h25 = 0, h26 = 0, h27 = 0, h28 = 0,
-    h33 = 0, h34 = 0, h35 = 0, h36 = 0, h37 = 0, h38 = 0,
-    h44 = 0, h45 = 0, h46 = 0, h47 = 0, h48 = 0,
-    h55 = 0, h56 = 0, h57 = 0, h58 = 0,
-    h66 = 0, h67 = 0, h68 = 0,
-    h77 = 0, h78 = 0,
-    h88 = 0;
-  let cost = 0;
-  let count = 0;
-  for (let k = 0; k < total; k++) {
-    const i = indices ? indices[k] : k;
-    if (mask && mask[i] === 0) continue;
-    const d0 = (x[i] - cx) * inv;
-    const d1 = (y[i] - cy) * inv;
-    const d2 = (z[i] - cz) * inv;
-    const v0 = m00 * d0 + m01 * d1 + m02 * d2;
-    const v1 = m01 * d0 + m11 * d1 + m12 * d2;
-    const v2 = m02 * d0 + m12 * d1 + m22 * d2;
-    const rho = Math.sqrt(v0 * v0 + v1 * v1 + v2 * v2);
-    const r = rho - 1;
-    cost += r * r;
-    count++;
-    // A sample at the centre has no radial direction and adds nothing to the gradient.
-    if (rho < EPSILON) continue;
-    const n0 = v0 / rho;
-    const n1 = v1 / rho;
-    const n2 = v2 / rho;
-    const j0 = -(m00 * n0 + m01 * n1 + m02 * n2);
-    const j1 = -(m01 * n0 + m11 * n1 + m12 * n2);
-    const j2 = -(m02 * n0 + m12 * n1 + m22 * n2);
-    const j3 = n0 * d0;
-    const j4 = n1 * d1;
-    const j5 = n2 * d2;
-    const j6 = n1 * d2 + n2 * d1;
-    const j7 = n0 * d2 + n2 * d0;
-    const j8 = n0 * d1 + n1 * d0;
-    g0 += j0 * r;
-    g1 += j1 * r;
-    g2 += j2 * r;
-    g3 += j3 * r;
-    g4 += j4 * r;
-    g5 += j5 * r;
-    g6 += j6 * r;
-    g7 += j7 * r;
-    g8 += j8 * r;
-    if (!withCurvature) continue;
-    // prettier-ignore
-    {
-      h00 += j0 * j0; h01 += j0 * j1; h02 += j0 * j2; h03 += j0 * j3; h04 += j0 * j4; h05 += j0 * j5; h06 += j0 * j6; h07 += j0 * j7; h08 += j0 * j8;
-      h11 += j1 * j1; h12 += j1 * j2; h13 += j1 * j3; h14 += j1 * j4; h15 += j1 * j5; h16 += j1 * j6; h17 += j1 * j7; h18 += j1 * j8;
-      h22 += j2 * j2; h23 += j2 * j3; h24 += j2 * j4; h25 += j2 * j5; h26 += j2 * j6; h27 += j2 * j7; h28 += j2 * j8;
-      h33 += j3 * j3; h34 += j3 * j4; h35 += j3 * j5; h36 += j3 * j6; h37 += j3 * j7; h38 += j3 * j8;
-      h44 += j4 * j4; h45 += j4 * j5; h46 += j4 * j6; h47 += j4 * j7; h48 += j4 * j8;
-      h55 += j5 * j5; h56 += j5 * j6; h57 += j5 * j7; h58 += j5 * j8;
-      h66 += j6 * j6; h67 += j6 * j7; h68 += j6 * j8;
-      h77 += j7 * j7; h78 += j7 * j8;
-      h88 += j8 * j8;
-    }
-  }
-  jtr[0] = g0;
-  jtr[1] = g1;
-  jtr[2] = g2;
-  jtr[3] = g3;
-  jtr[4] = g4;
-  jtr[5] = g5;
-  jtr[6] = g6;
-  jtr[7] = g7;
-  jtr[8] = g8;
-  if (withCurvature) {
-    // prettier-ignore
-    {
-      jtj[0] = h00; jtj[1] = jtj[9] = h01; jtj[2] = jtj[18] = h02; jtj[3] = jtj[27] = h03; jtj[4] = jtj[36] = h04; jtj[5] = jtj[45] = h05; jtj[6] = jtj[54] = h06; jtj[7] = jtj[63] = h07; jtj[8] = jtj[72] = h08;
-      jtj[10] = h11; jtj[11] = jtj[19] = h12; jtj[12] = jtj[28] = h13; jtj[13] = jtj[37] = h14; jtj[14] = jtj[46] = h15; jtj[15] = jtj[55] = h16; jtj[16] = jtj[64] = h17; jtj[17] = jtj[73] = h18;
-      jtj[20] = h22; jtj[21] = jtj[29] = h23; jtj[22] = jtj[38] = h24; jtj[23] = jtj[47] = h25; jtj[24] = jtj[56] = h26; jtj[25] = jtj[65] = h27; jtj[26] = jtj[74] = h28;
-      jtj[30] = h33; jtj[31] = jtj[39] = h34; jtj[32] = jtj[48] = h35; jtj[33] = jtj[57] = h36; jtj[34] = jtj[66] = h37; jtj[35] = jtj[75] = h38;
-      jtj[40] = h44; jtj[41] = jtj[49] = h45; jtj[42] = jtj[58] = h46; jtj[43] = jtj[67] = h47; jtj[44] = jtj[76] = h48;
-      jtj[50] = h55; jtj[51] = jtj[59] = h56; jtj[52] = jtj[68] = h57; jtj[53] = jtj[77] = h58;
-      jtj[60] = h66; jtj[61] = jtj[69] = h67; jtj[62] = jtj[78] = h68;
-      jtj[70] = h77; jtj[71] = jtj[79] = h78;
-      jtj[80] = h88;
-    }
-  }
-  return { cost, count };
 }
 
 /** Columns of the full Jacobian that each parameter of a model moves. */
@@ -289,11 +154,11 @@ function iterate(
   maxIterations: number,
   dampingStart: number,
 ): IterationResult {
-  const linearise = (at: Float64Array): Sums => {
+  const linearise = (at: Float64Array): RadialSums => {
     loadShape(model, at);
-    if (!curvatureSelection) return sumNormalEquations(series, norm, at, selection, true);
-    const sampled = sumNormalEquations(series, norm, at, curvatureSelection, true);
-    const full = sumNormalEquations(series, norm, at, selection, false);
+    if (!curvatureSelection) return sumRadialNormalEquations(series, norm, at, shape, selection, jtr, jtj);
+    const sampled = sumRadialNormalEquations(series, norm, at, shape, curvatureSelection, jtr, jtj);
+    const full = sumRadialNormalEquations(series, norm, at, shape, selection, jtr, null);
     const ratio = full.count / Math.max(1, sampled.count);
     for (let i = 0; i < 81; i++) jtj[i] *= ratio;
     return full;
@@ -330,7 +195,7 @@ function iterate(
     }
     const trial = p.map((v, i) => v + step[i]);
     loadShape(model, trial);
-    const next = sumCost(series, norm, trial, selection);
+    const next = sumRadialCost(series, norm, trial, shape, selection);
     if (next.cost <= current.cost) {
       const gain = current.cost - next.cost;
       p = trial;

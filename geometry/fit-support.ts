@@ -48,6 +48,7 @@ const percent = (v: number) => `${(100 * v).toFixed(1)}%`;
 /** Covariance eigen-decomposition of the eligible samples: values descending, vectors as columns. */
 function covarianceAxes(series: Vec3Series, eligible: Uint8Array, centre: Vec3): { values: number[]; vectors: Vec3[] } {
   const { x, y, z } = series;
+  // prettier-ignore
   let sxx = 0, syy = 0, szz = 0, sxy = 0, sxz = 0, syz = 0, n = 0;
   for (let i = 0; i < x.length; i++) {
     if (eligible[i] === 0) continue;
@@ -115,6 +116,7 @@ function ringResidual(series: Vec3Series, eligible: Uint8Array, centre: Vec3, e1
 /** Mean resultant length of the unit directions from `centre` to the eligible samples. */
 function concentrationAbout(series: Vec3Series, eligible: Uint8Array, centre: Vec3): number {
   const { x, y, z } = series;
+  // prettier-ignore
   let sx = 0, sy = 0, sz = 0, n = 0;
   for (let i = 0; i < x.length; i++) {
     if (eligible[i] === 0) continue;

@@ -117,7 +117,10 @@ export function chooseMagModel(
   if (choice !== "auto") {
     const forced = candidates.find((c) => c.estimate.model === choice);
     if (!forced) return { ok: false, detail: failures.find((f) => f.startsWith(choice)) ?? `the ${choice} model could not be fitted` };
-    return { ok: true, choice: { chosen: forced, candidates, reason: `The ${choice} model was requested. Residual RMS per model: ${summary}.` } };
+    return {
+      ok: true,
+      choice: { chosen: forced, candidates, reason: `The ${choice} model was requested. Residual RMS per model: ${summary}.` },
+    };
   }
   const best = candidates.reduce((a, b) => (b.score < a.score ? b : a));
   const simpler = candidates.filter((c) => c.parameterCount < best.parameterCount);

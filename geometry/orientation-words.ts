@@ -54,7 +54,10 @@ const round5 = (deg: number) => Math.round(deg / 5) * 5;
  * `inclinationDeg`. Every turn about the field line keeps the target on it; the one with
  * the least pitch and roll is chosen, a change of heading counting a quarter.
  */
-export function suggestAttitude(target: Vec3, inclinationDeg = DEFAULT_INCLINATION_DEG): { yawDeg: number; pitchDeg: number; rollDeg: number } {
+export function suggestAttitude(
+  target: Vec3,
+  inclinationDeg = DEFAULT_INCLINATION_DEG,
+): { yawDeg: number; pitchDeg: number; rollDeg: number } {
   const dip = inclinationDeg * DEG;
   // The field in the magnetic north–east–down frame.
   const field: Vec3 = [Math.cos(dip), 0, Math.sin(dip)];

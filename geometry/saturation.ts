@@ -66,7 +66,9 @@ function analyseAxis(axis: "x" | "y" | "z", values: Float64Array, eligible?: Uin
   const step = empty ? null : quantisationStepOf(values, eligible);
   const range = empty ? 0 : max - min;
   const band = step ?? 0.01 * range;
+  // prettier-ignore
   let countAtMin = 0, countAtMax = 0, nearMin = 0, nearMax = 0;
+  // prettier-ignore
   let runMin = 0, runMax = 0, longestRunAtMin = 0, longestRunAtMax = 0;
   for (let i = 0; i < values.length; i++) {
     if (eligible && eligible[i] === 0) continue;

@@ -59,7 +59,8 @@ interface MagnetometerModel {
 
 function magnetometerModel(spec: SimulatedMagnetometerSpec, fieldStrength: number, mag0Frame: Mat3 | null): MagnetometerModel {
   // mag0Frame: mag0's body-to-logged rotation (null for mag0 itself).
-  const softIron = typeof spec.softIron === "string" || spec.softIron === undefined ? SOFT_IRON_LEVELS[spec.softIron ?? "none"] : spec.softIron;
+  const softIron =
+    typeof spec.softIron === "string" || spec.softIron === undefined ? SOFT_IRON_LEVELS[spec.softIron ?? "none"] : spec.softIron;
   const offset = spec.hardIronOffset ?? [0, 0, 0];
   const mounting = spec.mountingRotation ?? identity3();
   const declared = spec.declaredRotation ?? mounting;
@@ -139,7 +140,14 @@ export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
   const magSpecs = spec.magnetometers ?? [{}];
   const first = magnetometerModel(magSpecs[0] ?? {}, fieldStrength, null);
   const mags = magSpecs.map((m, i) => (i === 0 ? first : magnetometerModel(m, fieldStrength, first.bodyToLogged)));
-  const accelSpec = spec.accelerometer === false ? null : { offset: spec.accelerometer?.offset ?? [0, 0, 0], scale: spec.accelerometer?.scale ?? [1, 1, 1], noise: spec.accelerometer?.noise ?? 0.02 };
+  const accelSpec =
+    spec.accelerometer === false
+      ? null
+      : {
+          offset: spec.accelerometer?.offset ?? [0, 0, 0],
+          scale: spec.accelerometer?.scale ?? [1, 1, 1],
+          noise: spec.accelerometer?.noise ?? 0.02,
+        };
   const gyroSpec = spec.gyro === false ? null : { bias: spec.gyro?.bias ?? [0, 0, 0], noise: spec.gyro?.noise ?? 0.002 };
 
   const segments = buildSegments(spec, fieldDirection, random);
@@ -164,7 +172,8 @@ export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
   const holds: CaptureTruth["holds"] = [];
   let currentWindow: CaptureTruth["currentWindow"] = null;
   segments.forEach((s, i) => {
-    if (s.kind === "hold") holds.push({ face: s.face!, startS: starts[i], endS: starts[i] + s.seconds, tiltDeg: s.tiltDeg ?? 0, wobbleDeg: s.wobbleDeg ?? 0 });
+    if (s.kind === "hold")
+      holds.push({ face: s.face!, startS: starts[i], endS: starts[i] + s.seconds, tiltDeg: s.tiltDeg ?? 0, wobbleDeg: s.wobbleDeg ?? 0 });
     if (s.kind === "motor-run") currentWindow = { startS: starts[i], endS: starts[i] + s.seconds };
   });
 

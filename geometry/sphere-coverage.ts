@@ -102,8 +102,21 @@ export function largestEmptyCap(directions: Vec3Series, mask?: Uint8Array): { ce
         const e1 = normalize(cross(c, Math.abs(c[0]) < 0.9 ? [1, 0, 0] : [0, 1, 0]));
         const e2 = cross(c, e1);
         const s = Math.tan(stepDeg * DEG);
-        for (const [a, b] of [[1, 0], [-1, 0], [0, 1], [0, -1], [0.7, 0.7], [-0.7, 0.7], [0.7, -0.7], [-0.7, -0.7]]) {
-          const trial = normalize([c[0] + s * (a * e1[0] + b * e2[0]), c[1] + s * (a * e1[1] + b * e2[1]), c[2] + s * (a * e1[2] + b * e2[2])]);
+        for (const [a, b] of [
+          [1, 0],
+          [-1, 0],
+          [0, 1],
+          [0, -1],
+          [0.7, 0.7],
+          [-0.7, 0.7],
+          [0.7, -0.7],
+          [-0.7, -0.7],
+        ]) {
+          const trial = normalize([
+            c[0] + s * (a * e1[0] + b * e2[0]),
+            c[1] + s * (a * e1[1] + b * e2[1]),
+            c[2] + s * (a * e1[2] + b * e2[2]),
+          ]);
           const td = nearestDot(trial, points, count, d);
           if (td < d) {
             c = trial;

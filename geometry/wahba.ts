@@ -31,7 +31,9 @@ export function relativeRotation(reference: Vec3Series, other: Vec3Series, mask?
   let used = 0;
   for (let i = 0; i < n; i++) {
     if (mask && mask[i] === 0) continue;
+    // prettier-ignore
     const ax = reference.x[i], ay = reference.y[i], az = reference.z[i];
+    // prettier-ignore
     const bx = other.x[i], by = other.y[i], bz = other.z[i];
     const la = Math.sqrt(ax * ax + ay * ay + az * az);
     const lb = Math.sqrt(bx * bx + by * by + bz * bz);
@@ -50,7 +52,17 @@ export function relativeRotation(reference: Vec3Series, other: Vec3Series, mask?
   const u = fromMatrix(svd.leftSingularVectors);
   const v = fromMatrix(svd.rightSingularVectors);
   const d = Math.sign(det3(u) * det3(v)) || 1;
-  const rotation = mulMat(u, mulMat([[1, 0, 0], [0, 1, 0], [0, 0, d]], transpose3(v)));
+  const rotation = mulMat(
+    u,
+    mulMat(
+      [
+        [1, 0, 0],
+        [0, 1, 0],
+        [0, 0, d],
+      ],
+      transpose3(v),
+    ),
+  );
   const singular = svd.diagonal;
   const determined = used > 0 && singular[1] > DETERMINED_RATIO * singular[0];
 
@@ -58,7 +70,9 @@ export function relativeRotation(reference: Vec3Series, other: Vec3Series, mask?
   let sumSq = 0;
   for (let i = 0; i < n; i++) {
     if (mask && mask[i] === 0) continue;
+    // prettier-ignore
     const ax = reference.x[i], ay = reference.y[i], az = reference.z[i];
+    // prettier-ignore
     const bx = other.x[i], by = other.y[i], bz = other.z[i];
     const rx = rotation[0][0] * bx + rotation[0][1] * by + rotation[0][2] * bz;
     const ry = rotation[1][0] * bx + rotation[1][1] * by + rotation[1][2] * bz;

@@ -5,11 +5,21 @@ import { fitMagModel } from "@/geometry/magnetometer-models";
 import { simulateCapture } from "@/geometry/simulator";
 
 function setup(noise: number, seed: number) {
-  const { table, truth } = simulateCapture({ seed, pathSeconds: 40, accelerometer: false, gyro: false, magnetometers: [{ hardIronOffset: [12, -7, 30], softIron: "mild", noise }] });
+  const { table, truth } = simulateCapture({
+    seed,
+    pathSeconds: 40,
+    accelerometer: false,
+    gyro: false,
+    magnetometers: [{ hardIronOffset: [12, -7, 30], softIron: "mild", noise }],
+  });
   const series = { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
   const fit = fitMagModel(series, "full");
   if (!fit.ok) throw new Error(fit.detail);
-  const estimate = { offset: fit.fit.estimate.hardIronOffset, scales: ellipsoidScales(fit.fit.estimate.softIronMatrix), start: fit.fit.estimate };
+  const estimate = {
+    offset: fit.fit.estimate.hardIronOffset,
+    scales: ellipsoidScales(fit.fit.estimate.softIronMatrix),
+    start: fit.fit.estimate,
+  };
   return { series, truth, estimate, inliers: new Uint8Array(series.x.length).fill(1) };
 }
 
@@ -61,7 +71,10 @@ describe("bootstrapIntervals", () => {
   test("subsamples smaller than the data are scaled back: intervals match those of full-size resamples (±35%)", () => {
     const { series, estimate, inliers } = setup(0.5, 8);
     const width = (subsampleSize: number) =>
-      bootstrapIntervals(series, "full", inliers, estimate, { seed: 3, resamples: 120, subsampleSize }).offsetInterval95.reduce((sum, i) => sum + (i.high - i.low), 0);
+      bootstrapIntervals(series, "full", inliers, estimate, { seed: 3, resamples: 120, subsampleSize }).offsetInterval95.reduce(
+        (sum, i) => sum + (i.high - i.low),
+        0,
+      );
     const ratio = width(500) / width(series.x.length);
     expect(ratio).toBeGreaterThan(0.65);
     expect(ratio).toBeLessThan(1.35);

@@ -43,7 +43,16 @@ const expectedCorrection = (s: Mat3) => scaleMat(inverse3(s), Math.cbrt(det3(s))
 describe("fitEllipsoidAlgebraic", () => {
   test.each([
     { label: "sphere model, clean sphere", model: "sphere" as const, distortion: IDENTITY, offset: [12, -30, 45] as Vec3 },
-    { label: "axis model, axis-aligned scales", model: "axis" as const, distortion: [[1.2, 0, 0], [0, 0.9, 0], [0, 0, 1.05]] as Mat3, offset: [-5, 8, 2] as Vec3 },
+    {
+      label: "axis model, axis-aligned scales",
+      model: "axis" as const,
+      distortion: [
+        [1.2, 0, 0],
+        [0, 0.9, 0],
+        [0, 0, 1.05],
+      ] as Mat3,
+      offset: [-5, 8, 2] as Vec3,
+    },
     { label: "full model, strong soft iron", model: "full" as const, distortion: STRONG, offset: [300, -120, 550] as Vec3 },
   ])("recovers offset, correction and radius from noise-free samples: $label", ({ model, distortion, offset }) => {
     // Truth is the invented distortion itself; noise-free data must be fitted to round-off.
@@ -58,7 +67,10 @@ describe("fitEllipsoidAlgebraic", () => {
   });
 
   test.each([
-    { label: "all samples at one point", series: { x: new Float64Array(50).fill(1), y: new Float64Array(50).fill(2), z: new Float64Array(50).fill(3) } },
+    {
+      label: "all samples at one point",
+      series: { x: new Float64Array(50).fill(1), y: new Float64Array(50).fill(2), z: new Float64Array(50).fill(3) },
+    },
     { label: "fewer samples than parameters", series: ellipsoidSamples(5, [0, 0, 0], IDENTITY, 50, 0) },
   ])("fails with a reason: $label", ({ series }) => {
     const fit = fitEllipsoidAlgebraic(series, "full");
@@ -68,8 +80,22 @@ describe("fitEllipsoidAlgebraic", () => {
 
 describe("symmetricSqrt", () => {
   test.each([
-    { label: "diagonal", q: [[4, 0, 0], [0, 9, 0], [0, 0, 16]] as Mat3 },
-    { label: "full SPD", q: [[2.0, 0.3, -0.2], [0.3, 1.5, 0.1], [-0.2, 0.1, 1.2]] as Mat3 },
+    {
+      label: "diagonal",
+      q: [
+        [4, 0, 0],
+        [0, 9, 0],
+        [0, 0, 16],
+      ] as Mat3,
+    },
+    {
+      label: "full SPD",
+      q: [
+        [2.0, 0.3, -0.2],
+        [0.3, 1.5, 0.1],
+        [-0.2, 0.1, 1.2],
+      ] as Mat3,
+    },
   ])("agrees with mathjs sqrtm (independent implementation): $label", ({ q }) => {
     const ours = symmetricSqrt(q);
     expect(ours).not.toBeNull();
@@ -78,7 +104,13 @@ describe("symmetricSqrt", () => {
   });
 
   test("refuses an indefinite matrix (not an ellipsoid)", () => {
-    expect(symmetricSqrt([[1, 0, 0], [0, -1, 0], [0, 0, 1]])).toBeNull();
+    expect(
+      symmetricSqrt([
+        [1, 0, 0],
+        [0, -1, 0],
+        [0, 0, 1],
+      ]),
+    ).toBeNull();
   });
 });
 
@@ -99,7 +131,15 @@ describe("quadricToEllipsoid", () => {
 describe("ellipsoidScales", () => {
   test.each([
     { label: "identity → 1", w: IDENTITY, expected: [1, 1, 1] },
-    { label: "diagonal → 1/W_ii", w: [[0.5, 0, 0], [0, 1, 0], [0, 0, 2]] as Mat3, expected: [2, 1, 0.5] },
+    {
+      label: "diagonal → 1/W_ii",
+      w: [
+        [0.5, 0, 0],
+        [0, 1, 0],
+        [0, 0, 2],
+      ] as Mat3,
+      expected: [2, 1, 0.5],
+    },
   ])("$label (worked by hand)", ({ w, expected }) => {
     ellipsoidScales(w).forEach((v, i) => expect(v).toBeCloseTo(expected[i], 12));
   });

@@ -109,7 +109,14 @@ describe("refineEllipsoid", () => {
     if (!start.ok) throw new Error(start.detail);
     const w = refineEllipsoid(series, start.estimate).estimate.softIronMatrix;
     expect([w[0][1], w[0][2], w[1][2]]).toEqual([0, 0, 0]);
-    if (model === "sphere") expect(maxAbsDiff3(w, [[1, 0, 0], [0, 1, 0], [0, 0, 1]])).toBeLessThan(1e-12);
+    if (model === "sphere")
+      expect(
+        maxAbsDiff3(w, [
+          [1, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ]),
+      ).toBeLessThan(1e-12);
   });
 
   test("long captures (subsample stage, then every sample) land where a direct fit does", () => {
@@ -127,7 +134,11 @@ describe("refineEllipsoid", () => {
     const reference = refinedFull(base);
     fc.assert(
       fc.property(
-        fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true })),
+        fc.tuple(
+          fc.double({ min: -1, max: 1, noNaN: true }),
+          fc.double({ min: -1, max: 1, noNaN: true }),
+          fc.double({ min: -1, max: 1, noNaN: true }),
+        ),
         fc.double({ min: 0.05, max: Math.PI, noNaN: true }),
         fc.double({ min: 0.01, max: 1000, noNaN: true }),
         (axis, angle, factor) => {

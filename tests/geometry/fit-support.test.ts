@@ -44,7 +44,10 @@ describe("checkFitSupport", () => {
 
   test.each([
     { label: "full tumble", series: () => mag0({ path: "full" }) },
-    { label: "strong soft iron, full tumble", series: () => mag0({ path: "full", magnetometers: [{ softIron: "strong", hardIronOffset: [40, 0, -20] }] }) },
+    {
+      label: "strong soft iron, full tumble",
+      series: () => mag0({ path: "full", magnetometers: [{ softIron: "strong", hardIronOffset: [40, 0, -20] }] }),
+    },
     { label: "upper half only (a hemisphere)", series: () => mag0({ path: "upper-half" }) },
     { label: "cap of 120°", series: () => capSamples(120) },
   ])("accepts $label", ({ series }) => {

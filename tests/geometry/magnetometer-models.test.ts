@@ -4,7 +4,13 @@ import type { Mat3 } from "@/geometry/types";
 import { simulateCapture } from "@/geometry/simulator";
 
 function mag0(softIron: Mat3 | "none" | "strong", seed = 4) {
-  const { table } = simulateCapture({ seed, pathSeconds: 40, accelerometer: false, gyro: false, magnetometers: [{ hardIronOffset: [20, -8, 35], softIron, noise: 0.3 }] });
+  const { table } = simulateCapture({
+    seed,
+    pathSeconds: 40,
+    accelerometer: false,
+    gyro: false,
+    magnetometers: [{ hardIronOffset: [20, -8, 35], softIron, noise: 0.3 }],
+  });
   return { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
 }
 
@@ -32,7 +38,15 @@ describe("chooseMagModel", () => {
   test.each([
     // Truth: the simulator's soft-iron matrix; BIC should pick the smallest model that contains it.
     { label: "no soft iron → sphere", softIron: "none" as const, expected: "sphere" },
-    { label: "axis-aligned soft iron → axis", softIron: [[1.15, 0, 0], [0, 0.9, 0], [0, 0, 1.0]] as Mat3, expected: "axis" },
+    {
+      label: "axis-aligned soft iron → axis",
+      softIron: [
+        [1.15, 0, 0],
+        [0, 0.9, 0],
+        [0, 0, 1.0],
+      ] as Mat3,
+      expected: "axis",
+    },
     { label: "soft iron with cross terms → full", softIron: "strong" as const, expected: "full" },
   ])("auto: $label", ({ softIron, expected }) => {
     const result = chooseMagModel(mag0(softIron), "auto");

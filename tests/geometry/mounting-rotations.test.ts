@@ -8,10 +8,17 @@ describe("MOUNTING_ROTATIONS", () => {
     expect(MOUNTING_ROTATIONS).toHaveLength(48);
     for (const r of MOUNTING_ROTATIONS) {
       expect(det3(r.matrix)).toBeCloseTo(1, 12);
-      expect(maxAbsDiff3(mulMat(r.matrix, transpose3(r.matrix)), [[1, 0, 0], [0, 1, 0], [0, 0, 1]])).toBeLessThan(1e-12);
+      expect(
+        maxAbsDiff3(mulMat(r.matrix, transpose3(r.matrix)), [
+          [1, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ]),
+      ).toBeLessThan(1e-12);
     }
     for (let i = 0; i < MOUNTING_ROTATIONS.length; i++) {
-      for (let j = i + 1; j < MOUNTING_ROTATIONS.length; j++) expect(maxAbsDiff3(MOUNTING_ROTATIONS[i].matrix, MOUNTING_ROTATIONS[j].matrix)).toBeGreaterThan(0.1);
+      for (let j = i + 1; j < MOUNTING_ROTATIONS.length; j++)
+        expect(maxAbsDiff3(MOUNTING_ROTATIONS[i].matrix, MOUNTING_ROTATIONS[j].matrix)).toBeGreaterThan(0.1);
     }
     expect(new Set(MOUNTING_ROTATIONS.map((r) => r.name)).size).toBe(48);
   });

@@ -28,7 +28,13 @@ describe("medianInPlace", () => {
 
 describe("fitWithOutlierRejection", () => {
   const capture = () => {
-    const { table, truth } = simulateCapture({ seed: 21, pathSeconds: 40, accelerometer: false, gyro: false, magnetometers: [{ hardIronOffset: [15, 25, -40], softIron: "mild", noise: 0.3 }] });
+    const { table, truth } = simulateCapture({
+      seed: 21,
+      pathSeconds: 40,
+      accelerometer: false,
+      gyro: false,
+      magnetometers: [{ hardIronOffset: [15, 25, -40], softIron: "mild", noise: 0.3 }],
+    });
     return { series: { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] }, truth };
   };
 
@@ -49,7 +55,9 @@ describe("fitWithOutlierRejection", () => {
     expect(result.robust.outliersRejected).toBeGreaterThanOrEqual(caught);
     expect(result.robust.outliersRejected).toBeLessThanOrEqual(caught + 3);
     // Tolerance 0.1 µT: a few times the bootstrap spread of a clean 2,000-sample fit at this noise.
-    result.robust.fit.estimate.hardIronOffset.forEach((v, i) => expect(Math.abs(v - truth.magnetometers[0].loggedHardIronOffset[i])).toBeLessThan(0.1));
+    result.robust.fit.estimate.hardIronOffset.forEach((v, i) =>
+      expect(Math.abs(v - truth.magnetometers[0].loggedHardIronOffset[i])).toBeLessThan(0.1),
+    );
   });
 
   test("clean data loses (almost) nothing at 5 robust sigmas", () => {

@@ -51,7 +51,11 @@ describe("rotationLog and rotationExp", () => {
   test("are inverse for angles below 180° (fast-check)", () => {
     fc.assert(
       fc.property(
-        fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true })),
+        fc.tuple(
+          fc.double({ min: -1, max: 1, noNaN: true }),
+          fc.double({ min: -1, max: 1, noNaN: true }),
+          fc.double({ min: -1, max: 1, noNaN: true }),
+        ),
         fc.double({ min: 0, max: Math.PI - 1e-3, noNaN: true }),
         (axis, angle) => {
           fc.pre(Math.hypot(...axis) > 0.1);
@@ -94,7 +98,13 @@ describe("nearestRotation", () => {
     const noisy = r.map((row) => row.map((v, j) => v + 0.01 * (j - 1))) as typeof r;
     const fixed = nearestRotation(noisy);
     expect(det3(fixed)).toBeCloseTo(1, 12);
-    expect(maxAbsDiff3(mulMat(fixed, transpose3(fixed)), [[1, 0, 0], [0, 1, 0], [0, 0, 1]])).toBeLessThan(1e-12);
+    expect(
+      maxAbsDiff3(mulMat(fixed, transpose3(fixed)), [
+        [1, 0, 0],
+        [0, 1, 0],
+        [0, 0, 1],
+      ]),
+    ).toBeLessThan(1e-12);
     expect(angleBetweenRotationsDeg(fixed, r)).toBeLessThan(1);
   });
 });

@@ -4,7 +4,13 @@ import { createRandom } from "@/geometry/random";
 import { simulateCapture } from "@/geometry/simulator";
 
 function mag0(clipLevel?: number, quantisationStep?: number) {
-  const { table } = simulateCapture({ seed: 13, pathSeconds: 40, accelerometer: false, gyro: false, magnetometers: [{ hardIronOffset: [5, -3, 8], clipLevel, quantisationStep }] });
+  const { table } = simulateCapture({
+    seed: 13,
+    pathSeconds: 40,
+    accelerometer: false,
+    gyro: false,
+    magnetometers: [{ hardIronOffset: [5, -3, 8], clipLevel, quantisationStep }],
+  });
   return { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
 }
 
@@ -58,7 +64,11 @@ describe("analyseSaturation", () => {
 
   test("a stuck axis (one value throughout) is reported as clipped", () => {
     const n = 100;
-    const report = analyseSaturation({ x: new Float64Array(n).fill(12), y: Float64Array.from({ length: n }, (_, i) => Math.sin(i)), z: Float64Array.from({ length: n }, (_, i) => Math.cos(i)) });
+    const report = analyseSaturation({
+      x: new Float64Array(n).fill(12),
+      y: Float64Array.from({ length: n }, (_, i) => Math.sin(i)),
+      z: Float64Array.from({ length: n }, (_, i) => Math.cos(i)),
+    });
     expect(report.axes[0].clippedHigh && report.axes[0].clippedLow).toBe(true);
     expect(report.axes[0].longestRunAtMax).toBe(n);
   });

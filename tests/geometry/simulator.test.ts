@@ -23,7 +23,23 @@ describe("simulateCapture", () => {
 
   test("canonical columns in order, all of the table's length", () => {
     const { table } = simulateCapture({ pathSeconds: 2, magnetometers: [{}, {}], currentTest: { maxAmps: 10, seconds: 2 } });
-    expect(table.fields).toEqual(["time", "mag0.x", "mag0.y", "mag0.z", "mag1.x", "mag1.y", "mag1.z", "accel0.x", "accel0.y", "accel0.z", "gyro0.x", "gyro0.y", "gyro0.z", "current", "throttle"]);
+    expect(table.fields).toEqual([
+      "time",
+      "mag0.x",
+      "mag0.y",
+      "mag0.z",
+      "mag1.x",
+      "mag1.y",
+      "mag1.z",
+      "accel0.x",
+      "accel0.y",
+      "accel0.z",
+      "gyro0.x",
+      "gyro0.y",
+      "gyro0.z",
+      "current",
+      "throttle",
+    ]);
     for (const f of table.fields) expect(table.columns[f]).toHaveLength(table.length);
   });
 
@@ -31,7 +47,10 @@ describe("simulateCapture", () => {
     const { table, truth } = simulateCapture({ pathSeconds: 10, magnetometers: [{ noise: 0 }] });
     expect(truth.fieldStrength).toBeCloseTo(norm(DEFAULT_SITE_FIELD_NED), 12);
     for (let i = 0; i < table.length; i += 37) {
-      expect(Math.hypot(table.columns["mag0.x"][i], table.columns["mag0.y"][i], table.columns["mag0.z"][i])).toBeCloseTo(truth.fieldStrength, 9);
+      expect(Math.hypot(table.columns["mag0.x"][i], table.columns["mag0.y"][i], table.columns["mag0.z"][i])).toBeCloseTo(
+        truth.fieldStrength,
+        9,
+      );
     }
   });
 
@@ -49,16 +68,34 @@ describe("simulateCapture", () => {
   });
 
   test("accelerometer offset and scale errors appear as specified, and gravity can be overridden", () => {
-    const { table, truth } = simulateCapture({ pathSeconds: 0, gravity: 9.79, holds: { faces: ["+z"] }, accelerometer: { offset: [0, 0, 0.3], scale: [1, 1, 1.02], noise: 0 } });
+    const { table, truth } = simulateCapture({
+      pathSeconds: 0,
+      gravity: 9.79,
+      holds: { faces: ["+z"] },
+      accelerometer: { offset: [0, 0, 0.3], scale: [1, 1, 1.02], noise: 0 },
+    });
     const hold = truth.holds[0];
     expect(meanOver(table.columns["accel0.z"], truth.sampleRateHz, hold.startS, hold.endS)).toBeCloseTo(-9.79 * 1.02 + 0.3, 6);
   });
 
   test("wobble shows in the accelerometer and gyro during holds; a tilt moves gravity off the axis", () => {
-    const calm = simulateCapture({ seed: 2, pathSeconds: 0, holds: { faces: ["+z"], wobbleDeg: 0 }, accelerometer: { noise: 0 }, gyro: { noise: 0 } });
-    const shaky = simulateCapture({ seed: 2, pathSeconds: 0, holds: { faces: ["+z"], wobbleDeg: 3, tiltDeg: 8 }, accelerometer: { noise: 0 }, gyro: { noise: 0 } });
+    const calm = simulateCapture({
+      seed: 2,
+      pathSeconds: 0,
+      holds: { faces: ["+z"], wobbleDeg: 0 },
+      accelerometer: { noise: 0 },
+      gyro: { noise: 0 },
+    });
+    const shaky = simulateCapture({
+      seed: 2,
+      pathSeconds: 0,
+      holds: { faces: ["+z"], wobbleDeg: 3, tiltDeg: 8 },
+      accelerometer: { noise: 0 },
+      gyro: { noise: 0 },
+    });
     const spread = (c: Float64Array, from: number, to: number) => Math.max(...c.subarray(from, to)) - Math.min(...c.subarray(from, to));
-    const window = (cap: typeof calm) => [Math.ceil(cap.truth.holds[0].startS * 50) + 5, Math.floor(cap.truth.holds[0].endS * 50) - 5] as const;
+    const window = (cap: typeof calm) =>
+      [Math.ceil(cap.truth.holds[0].startS * 50) + 5, Math.floor(cap.truth.holds[0].endS * 50) - 5] as const;
     expect(spread(calm.table.columns["gyro0.x"], ...window(calm))).toBeLessThan(1e-9);
     expect(spread(shaky.table.columns["gyro0.x"], ...window(shaky))).toBeGreaterThan(0.05);
     const z = meanOver(shaky.table.columns["accel0.z"], 50, shaky.truth.holds[0].startS, shaky.truth.holds[0].endS);
@@ -88,7 +125,9 @@ describe("simulateCapture", () => {
     }
     const last = table.length - 1;
     const truthLast = [table.columns["mag0.x"][last], table.columns["mag0.y"][last], table.columns["mag0.z"][last]];
-    const angle = Math.acos((v[0] * truthLast[0] + v[1] * truthLast[1] + v[2] * truthLast[2]) / (Math.hypot(...v) * Math.hypot(...truthLast)));
+    const angle = Math.acos(
+      (v[0] * truthLast[0] + v[1] * truthLast[1] + v[2] * truthLast[2]) / (Math.hypot(...v) * Math.hypot(...truthLast)),
+    );
     expect((angle * 180) / Math.PI).toBeLessThan(3);
   });
 
@@ -102,8 +141,15 @@ describe("simulateCapture", () => {
 
   test("steel nearby makes the field strength vary as the vehicle wanders", () => {
     const spreadOfStrength = (distanceM?: number) => {
-      const { table } = simulateCapture({ seed: 3, pathSeconds: 30, magnetometers: [{ noise: 0 }], ...(distanceM ? { steel: { distanceM } } : {}) });
-      const m = Array.from({ length: table.length }, (_, i) => Math.hypot(table.columns["mag0.x"][i], table.columns["mag0.y"][i], table.columns["mag0.z"][i]));
+      const { table } = simulateCapture({
+        seed: 3,
+        pathSeconds: 30,
+        magnetometers: [{ noise: 0 }],
+        ...(distanceM ? { steel: { distanceM } } : {}),
+      });
+      const m = Array.from({ length: table.length }, (_, i) =>
+        Math.hypot(table.columns["mag0.x"][i], table.columns["mag0.y"][i], table.columns["mag0.z"][i]),
+      );
       return Math.max(...m) - Math.min(...m);
     };
     expect(spreadOfStrength()).toBeLessThan(1e-9);
@@ -111,7 +157,11 @@ describe("simulateCapture", () => {
   });
 
   test("second compass: truth gives its rotation to mag0, for a body-frame and a sensor-frame logger", () => {
-    const yaw90 = [[0, -1, 0], [1, 0, 0], [0, 0, 1]] as [[number, number, number], [number, number, number], [number, number, number]];
+    const yaw90 = [
+      [0, -1, 0],
+      [1, 0, 0],
+      [0, 0, 1],
+    ] as [[number, number, number], [number, number, number], [number, number, number]];
     const body = simulateCapture({ pathSeconds: 1, magnetometers: [{}, { mountingRotation: yaw90 }] });
     const sensor = simulateCapture({ pathSeconds: 1, magnetometers: [{}, { mountingRotation: yaw90, loggedFrame: "sensor" }] });
     expect(body.truth.magnetometers[1].rotationToMag0.flat().map((v) => Math.round(v))).toEqual([1, 0, 0, 0, 1, 0, 0, 0, 1]);

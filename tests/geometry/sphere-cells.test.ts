@@ -1,6 +1,14 @@
 import { describe, expect, test } from "vitest";
 import { createRandom } from "@/geometry/random";
-import { cellBoundary, cellCentre, cellCount, cellIndexOf, describeCells, directionToFacePoint, facePointToDirection } from "@/geometry/sphere-cells";
+import {
+  cellBoundary,
+  cellCentre,
+  cellCount,
+  cellIndexOf,
+  describeCells,
+  directionToFacePoint,
+  facePointToDirection,
+} from "@/geometry/sphere-cells";
 import type { Vec3 } from "@/geometry/types";
 import { cross, dot, norm } from "@/geometry/vector";
 
@@ -32,7 +40,14 @@ describe("cellCount", () => {
 describe("directionToFacePoint and facePointToDirection", () => {
   test("are inverse to round-off for 20,000 random directions, poles and seams included", () => {
     const r = createRandom(4);
-    const directions: Vec3[] = [[0, 0, 1], [0, 0, -1], [1, 0, 0], [0, -1, 0], [0.6, 0, 0.8], [-0.6, 0, -0.8]];
+    const directions: Vec3[] = [
+      [0, 0, 1],
+      [0, 0, -1],
+      [1, 0, 0],
+      [0, -1, 0],
+      [0.6, 0, 0.8],
+      [-0.6, 0, -0.8],
+    ];
     for (let i = 0; i < 20_000; i++) directions.push(randomDirection(r));
     let worst = 0;
     for (const v of directions) {
@@ -49,7 +64,11 @@ describe("directionToFacePoint and facePointToDirection", () => {
 });
 
 describe("cellIndexOf and cellCentre", () => {
-  test.each([{ label: "Nside 1", n: 1 }, { label: "Nside 4", n: 4 }, { label: "Nside 8", n: 8 }])("every centre falls in its own cell ($label)", ({ n }) => {
+  test.each([
+    { label: "Nside 1", n: 1 },
+    { label: "Nside 4", n: 4 },
+    { label: "Nside 8", n: 8 },
+  ])("every centre falls in its own cell ($label)", ({ n }) => {
     for (let i = 0; i < cellCount(n); i++) {
       const c = cellCentre(i, n);
       expect(cellIndexOf(c[0], c[1], c[2], n)).toBe(i);

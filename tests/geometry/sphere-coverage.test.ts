@@ -11,15 +11,22 @@ import { angleBetweenDeg } from "@/geometry/vector";
 function directions(spec: CaptureSpec): Vec3Series {
   const { table, truth } = simulateCapture({ accelerometer: false, gyro: false, pathSeconds: 60, ...spec });
   const m = truth.magnetometers[0];
-  return applyCorrection({ hardIronOffset: m.loggedHardIronOffset, softIronMatrix: m.expectedSoftIronCorrection }, {
-    x: table.columns["mag0.x"],
-    y: table.columns["mag0.y"],
-    z: table.columns["mag0.z"],
-  });
+  return applyCorrection(
+    { hardIronOffset: m.loggedHardIronOffset, softIronMatrix: m.expectedSoftIronCorrection },
+    {
+      x: table.columns["mag0.x"],
+      y: table.columns["mag0.y"],
+      z: table.columns["mag0.z"],
+    },
+  );
 }
 
 function seriesOf(points: Vec3[]): Vec3Series {
-  return { x: Float64Array.from(points.map((p) => p[0])), y: Float64Array.from(points.map((p) => p[1])), z: Float64Array.from(points.map((p) => p[2])) };
+  return {
+    x: Float64Array.from(points.map((p) => p[0])),
+    y: Float64Array.from(points.map((p) => p[1])),
+    z: Float64Array.from(points.map((p) => p[2])),
+  };
 }
 
 describe("sphereCoverage", () => {
@@ -27,7 +34,9 @@ describe("sphereCoverage", () => {
     { label: "seed 1", seed: 1 },
     { label: "seed 2", seed: 2 },
   ])("a full tumble covers about every cell and leaves only small gaps ($label)", ({ seed }) => {
-    const coverage = sphereCoverage(directions({ seed, path: "full", magnetometers: [{ softIron: "strong", hardIronOffset: [30, 5, -20] }] }));
+    const coverage = sphereCoverage(
+      directions({ seed, path: "full", magnetometers: [{ softIron: "strong", hardIronOffset: [30, 5, -20] }] }),
+    );
     expect(coverage.cellCount).toBe(192);
     expect(coverage.coveredFraction).toBeGreaterThan(0.97);
     expect(coverage.largestGapDeg).toBeLessThan(15);
@@ -62,11 +71,29 @@ describe("largestEmptyCap", () => {
   test.each([
     // Worked by hand: with samples only at the six axis directions the widest empty caps are
     // centred on the eight cube diagonals, radius acos(1/√3) = 54.7356°.
-    { label: "six axis directions", points: [[1, 0, 0], [-1, 0, 0], [0, 1, 0], [0, -1, 0], [0, 0, 1], [0, 0, -1]] as Vec3[], radius: 54.7356 },
+    {
+      label: "six axis directions",
+      points: [
+        [1, 0, 0],
+        [-1, 0, 0],
+        [0, 1, 0],
+        [0, -1, 0],
+        [0, 0, 1],
+        [0, 0, -1],
+      ] as Vec3[],
+      radius: 54.7356,
+    },
     // One sample: the empty cap is everything but that point, centred opposite.
     { label: "a single sample", points: [[0, 0, 1]] as Vec3[], radius: 180 },
     // Two antipodal samples: any point on the equator is 90° from both.
-    { label: "two antipodes", points: [[0, 0, 1], [0, 0, -1]] as Vec3[], radius: 90 },
+    {
+      label: "two antipodes",
+      points: [
+        [0, 0, 1],
+        [0, 0, -1],
+      ] as Vec3[],
+      radius: 90,
+    },
   ])("$label", ({ points, radius }) => {
     const cap = largestEmptyCap(seriesOf(points));
     expect(cap.radiusDeg).toBeCloseTo(radius, 1);

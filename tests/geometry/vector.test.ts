@@ -38,10 +38,22 @@ describe("det3 and inverse3", () => {
     expect(det3(M)).toBe(25);
   });
   test("M · M⁻¹ = I", () => {
-    expect(maxAbsDiff3(mulMat(M, inverse3(M)), [[1, 0, 0], [0, 1, 0], [0, 0, 1]])).toBeLessThan(1e-15);
+    expect(
+      maxAbsDiff3(mulMat(M, inverse3(M)), [
+        [1, 0, 0],
+        [0, 1, 0],
+        [0, 0, 1],
+      ]),
+    ).toBeLessThan(1e-15);
   });
   test("a singular matrix throws", () => {
-    expect(() => inverse3([[1, 2, 3], [2, 4, 6], [0, 0, 1]])).toThrow("singular");
+    expect(() =>
+      inverse3([
+        [1, 2, 3],
+        [2, 4, 6],
+        [0, 0, 1],
+      ]),
+    ).toThrow("singular");
   });
 });
 

@@ -63,7 +63,15 @@ describe("relativeRotation", () => {
       pathSeconds: 40,
       accelerometer: false,
       gyro: false,
-      magnetometers: [{ hardIronOffset: [10, 4, -6] }, { hardIronOffset: [-20, 9, 3], softIron: "mild", mountingRotation: fromYawPitchRoll(90, 0, 0), declaredRotation: fromYawPitchRoll(0, 0, 0) }],
+      magnetometers: [
+        { hardIronOffset: [10, 4, -6] },
+        {
+          hardIronOffset: [-20, 9, 3],
+          softIron: "mild",
+          mountingRotation: fromYawPitchRoll(90, 0, 0),
+          declaredRotation: fromYawPitchRoll(0, 0, 0),
+        },
+      ],
     });
     const series = (k: number) => ({ x: table.columns[`mag${k}.x`], y: table.columns[`mag${k}.y`], z: table.columns[`mag${k}.z`] });
     const corrected = [0, 1].map((k) => {

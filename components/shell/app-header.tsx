@@ -39,9 +39,9 @@ export function AppHeader({ viewer, workspaces, current }: {
           </div>
         </details>
         <div className="ml-auto flex items-center gap-3 text-sm">
-          <span className="hidden text-chart-muted sm:inline" data-testid="viewer-name">
+          <Link href="/account/tokens" className="hidden text-chart-muted hover:text-chart-ink sm:inline" data-testid="viewer-name" title="Your account and API tokens">
             {viewer.name}
-          </span>
+          </Link>
           <form action={signOutAction}>
             <button type="submit" className="btn-quiet py-1.5">
               Sign out

@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import { QueryProvider } from "@/components/providers/query-provider";
 import { AppHeader } from "@/components/shell/app-header";
 import { WorkspaceNav, type NavItem } from "@/components/shell/workspace-nav";
 import { listWorkspacesForUser } from "@/lib/data/workspaces";
@@ -11,6 +12,9 @@ export default async function WorkspaceLayout({ children, params }: { children: 
   const workspaces = await listWorkspacesForUser(viewer.id);
   const base = `/w/${slug}`;
   const nav: NavItem[] = [{ href: base, label: "Overview" }];
+  if (can("vehicle.view")) nav.push({ href: `${base}/vehicles`, label: "Fleet" });
+  if (can("run.view")) nav.push({ href: `${base}/runs`, label: "Runs" });
+  if (can("vehicle.view")) nav.push({ href: `${base}/sites`, label: "Sites" });
   if (can("member.list")) nav.push({ href: `${base}/members`, label: "People" });
   if (can("audit.view")) nav.push({ href: `${base}/activity`, label: "Logbook" });
   if (can("workspace.update")) nav.push({ href: `${base}/settings`, label: "Settings" });
@@ -33,7 +37,9 @@ export default async function WorkspaceLayout({ children, params }: { children: 
           </div>
         </div>
       </div>
-      <main className="mx-auto max-w-6xl px-4 py-8 sm:px-6">{children}</main>
+      <main className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+        <QueryProvider>{children}</QueryProvider>
+      </main>
     </>
   );
 }

@@ -201,8 +201,8 @@ function iterate(
       p = trial;
       current = next;
       linearisedAtCurrent = false;
-      lambda = Math.max(lambda / 10, 1e-12);
-      if (gain <= 1e-12 * current.cost) {
+      lambda = Math.max(lambda / 10, EPSILON);
+      if (gain <= EPSILON * current.cost) {
         converged = true;
         break;
       }

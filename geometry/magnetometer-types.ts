@@ -249,7 +249,11 @@ export interface CaptureSpec {
   gyro?: { bias?: Vec3; noise?: number } | false;
   /** A still motor run appended at the end: current rises and falls; current and throttle columns are written. */
   currentTest?: { maxAmps: number; seconds?: number; profile?: "ramp" | "steps" };
-  /** A steel object near the capture spot: an induced dipole; the vehicle wanders ±0.3 m while turned. */
+  /**
+   * A steel object `distanceM` metres east of the capture spot (0.3 m below it): a dipole
+   * induced along the site field, of `strength` µT·m³ (default 5, i.e. 5–10 µT at 1 m);
+   * the vehicle wanders ±0.3 m while it is turned, so the distortion changes with position.
+   */
   steel?: { distanceM: number; strength?: number };
 }
 

@@ -9,7 +9,7 @@
 import type { MountingRotation } from "./magnetometer-types";
 import { angleBetweenRotationsDeg, rotationX, rotationY, rotationZ } from "./rotation";
 import type { Mat3 } from "./types";
-import { maxAbsDiff3, mulMat } from "./vector";
+import { EPSILON, maxAbsDiff3, mulMat } from "./vector";
 
 function nameOf(roll: number, pitch: number, yaw: number): string {
   const parts: string[] = [];
@@ -21,7 +21,7 @@ function nameOf(roll: number, pitch: number, yaw: number): string {
 
 const EXACT = [0, 1, -1, Math.SQRT1_2, -Math.SQRT1_2];
 /** Right angles and 45° give entries 0, ±1 and ±√½ exactly; remove the round-off of sin and cos. */
-const snap = (v: number) => EXACT.find((e) => Math.abs(v - e) < 1e-12) ?? v;
+const snap = (v: number) => EXACT.find((e) => Math.abs(v - e) < EPSILON) ?? v;
 
 function enumerate(): MountingRotation[] {
   const candidates: { name: string; matrix: Mat3; steps: number; total: number }[] = [];

@@ -18,7 +18,7 @@
  */
 import type { SphereCell } from "./magnetometer-types";
 import type { Vec3 } from "./types";
-import { cross, dot, normalize } from "./vector";
+import { EPSILON, cross, dot, normalize } from "./vector";
 
 const HALF_PI = Math.PI / 2;
 const TWO_THIRDS = 2 / 3;
@@ -114,7 +114,7 @@ export function facePointToDirection(face: number, fx: number, fy: number): Vec3
   let tmp = FACE_LONGITUDE[face] * nr + fx - fy;
   if (tmp < 0) tmp += 8;
   if (tmp >= 8) tmp -= 8;
-  const phi = nr < 1e-15 ? 0 : (0.5 * HALF_PI * tmp) / nr;
+  const phi = nr < EPSILON ? 0 : (0.5 * HALF_PI * tmp) / nr;
   return [sinTheta * Math.cos(phi), sinTheta * Math.sin(phi), z];
 }
 

@@ -1,7 +1,7 @@
 /** `npm run dev`: the same local services as `npm start`, with `next dev` (Turbopack) instead of a build. */
 import { spawn } from "node:child_process";
 import path from "node:path";
-import { ensureDatabase, freePort, log, migrate, root } from "./services";
+import { ensureDatabase, ensureObjectStorage, freePort, log, migrate, root, spawnWorker } from "./services";
 
 async function main() {
   process.env.DATABASE_URL = ensureDatabase();
@@ -17,6 +17,8 @@ async function main() {
     process.env.SMTP_PORT = String(smtpPort);
     log("mail", `SMTP sink on 127.0.0.1:${smtpPort}; captured mail at /dev/mail`);
   }
+  await ensureObjectStorage(path.join(root, ".data", "s3"));
+  const worker = spawnWorker();
   const nextBin = path.join(root, "node_modules", "next", "dist", "bin", "next");
   const port = process.env.PORT ?? "3000";
   const child = spawn(process.execPath, [nextBin, "dev", "-H", "127.0.0.1", "-p", port], {
@@ -24,7 +26,10 @@ async function main() {
     env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${port}` },
     stdio: "inherit",
   });
-  process.on("SIGINT", () => child.kill("SIGINT"));
+  process.on("SIGINT", () => {
+    child.kill("SIGINT");
+    worker.kill("SIGINT");
+  });
   child.on("exit", (code) => process.exit(code ?? 0));
 }
 

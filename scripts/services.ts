@@ -65,3 +65,22 @@ export async function waitForHttp(url: string, timeoutMs = 120_000): Promise<voi
     await new Promise((r) => setTimeout(r, 300));
   }
 }
+
+/** Start the object-storage fake unless S3_ENDPOINT points at a real store; sets S3_PORT. */
+export async function ensureObjectStorage(directory: string): Promise<{ close: () => Promise<void> } | null> {
+  if (process.env.S3_ENDPOINT) return null;
+  const { startS3Fake } = await import("./s3-fake");
+  const port = Number(process.env.S3_PORT ?? (await freePort(4569)));
+  const fake = await startS3Fake({ port, directory, bucket: process.env.S3_BUCKET ?? "loxodrome" });
+  process.env.S3_PORT = String(port);
+  log("storage", `S3-compatible fake on 127.0.0.1:${port}, files in ${directory}`);
+  return fake;
+}
+
+/** The background worker (scripts/worker.ts) as a child process with this environment. */
+export function spawnWorker(env: NodeJS.ProcessEnv = process.env) {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const { spawn } = require("node:child_process") as typeof import("node:child_process");
+  const tsx = path.join(root, "node_modules", "tsx", "dist", "cli.mjs");
+  return spawn(process.execPath, [tsx, "--conditions=react-server", path.join(root, "scripts", "worker.ts")], { cwd: root, env, stdio: "inherit" });
+}

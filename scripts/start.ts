@@ -1,11 +1,11 @@
 /**
  * `npm start`: the product on http://127.0.0.1:3000 with a seeded demo workspace.
  * PostgreSQL (installed from Debian's packages when missing), migrations, demo data, the
- * local SMTP sink, a production build and the server, in that order.
+ * local SMTP sink and object store, a production build, the server and the background worker.
  */
 import { spawn, spawnSync } from "node:child_process";
 import path from "node:path";
-import { ensureDatabase, freePort, log, migrate, root, waitForHttp } from "./services";
+import { ensureDatabase, ensureObjectStorage, freePort, log, migrate, root, spawnWorker, waitForHttp } from "./services";
 
 async function main() {
   const port = Number(process.env.PORT ?? 3000);
@@ -28,6 +28,8 @@ async function main() {
     log("mail", `SMTP sink on 127.0.0.1:${smtpPort}; captured mail at http://${host}:${port}/dev/mail`);
   }
 
+  await ensureObjectStorage(path.join(root, ".data", "s3"));
+
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     NODE_ENV: "production" as const,
@@ -45,8 +47,10 @@ async function main() {
     if (build.status !== 0) throw new Error("next build failed");
   }
   const server = spawn(process.execPath, [nextBin, "start", "-H", host, "-p", String(port)], { cwd: root, env, stdio: "inherit" });
+  const worker = spawnWorker(env);
   const stop = () => {
     server.kill("SIGTERM");
+    worker.kill("SIGTERM");
     setTimeout(() => process.exit(0), 2000).unref();
   };
   process.on("SIGINT", stop);

@@ -13,7 +13,7 @@ import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { dropDatabase, ensureDatabase, freePort, log, migrate, root } from "./services";
+import { dropDatabase, ensureDatabase, ensureObjectStorage, freePort, log, migrate, root } from "./services";
 
 function step(name: string, command: string, args: string[], env: NodeJS.ProcessEnv = process.env): void {
   log("test", name);
@@ -47,6 +47,7 @@ async function main() {
   const database = `loxodrome_test_${Date.now().toString(36)}_${process.pid}`;
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "loxodrome-test-"));
   let smtp: { close: (cb: () => void) => void } | undefined;
+  let storage: { close: () => Promise<void> } | null = null;
   let code = 1;
   try {
     if (!onlyUnit) {
@@ -59,6 +60,11 @@ async function main() {
       process.env.MAIL_SINK_DIR = path.join(tmp, "mail");
       process.env.SMTP_PORT = String(smtpPort);
       smtp = await startSmtpSink({ port: smtpPort, dir: process.env.MAIL_SINK_DIR });
+      storage = await ensureObjectStorage(path.join(tmp, "s3"));
+      // Short job timings so a test that kills a worker sees the retry within seconds.
+      process.env.JOB_EXPIRE_S ??= "20";
+      process.env.JOB_MAINTENANCE_S ??= "2";
+      process.env.JOB_RETRY_DELAY_S ??= "1";
       log("test", `database ${database}, SMTP sink on 127.0.0.1:${smtpPort}`);
     }
     process.env.LOXODROME_DATA_DIR = path.join(tmp, "data");
@@ -69,6 +75,7 @@ async function main() {
     code = await new Promise<number>((resolve) => vitest.on("exit", (status) => resolve(status ?? 1)));
   } finally {
     await new Promise<void>((resolve) => (smtp ? smtp.close(() => resolve()) : resolve()));
+    await storage?.close().catch(() => undefined);
     if (!onlyUnit && !process.env.LOXODROME_KEEP_TEST_DB) {
       try {
         dropDatabase(database);

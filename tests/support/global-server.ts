@@ -6,9 +6,10 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
-import { freePort, root, waitForHttp } from "../../scripts/services";
+import { freePort, root, spawnWorker, waitForHttp } from "../../scripts/services";
 
 let server: ChildProcess | undefined;
+let worker: ChildProcess | undefined;
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -35,10 +36,12 @@ export default async function setup(project: TestProject) {
     if (build.status !== 0) throw new Error("next build failed");
   }
   server = spawn(process.execPath, [nextBin, "start", "-H", "127.0.0.1", "-p", String(port)], { cwd: root, env, stdio: ["ignore", "ignore", "inherit"] });
+  worker = spawnWorker(env);
   await waitForHttp(`${baseUrl}/api/health`);
   console.log(`[browser] app serving on ${baseUrl}`);
   project.provide("baseUrl", baseUrl);
   return async () => {
     server?.kill("SIGTERM");
+    worker?.kill("SIGTERM");
   };
 }

@@ -139,6 +139,17 @@ describe("parseCsvStream", () => {
     }
   });
 
+  test("columns longer than one storage block (65,536 rows) come back whole and in order", async () => {
+    const text = goodCsv(70_000);
+    const result = await parseCsvStream(streamOf(text, 64 * 1024));
+    expect(result.table.length).toBe(70_000);
+    const time = result.table.columns.time;
+    expect(time[65_535]).toBe(655_350);
+    expect(time[65_536]).toBe(655_360);
+    expect(time[69_999]).toBe(699_990);
+    expect(result.table.columns["mag0.x"][69_999]).toBe(20 + 69_999);
+  });
+
   test("a multi-byte character split across chunks survives", async () => {
     const text = goodCsv().replace("mag_x (uT)", "mag_x (µT)");
     const result = await parseCsvStream(streamOf(text, 17));

@@ -1,12 +1,12 @@
 import { PROCESS_RUN_VERSION, JOB_SETTINGS, queue } from "@/lib/jobs/queue";
-import { giveUp, processRunVersion } from "@/lib/jobs/process-run-version";
+import { giveUp, processRunVersion, type ProcessHooks } from "@/lib/jobs/process-run-version";
 
 /**
  * Take run versions off the queue one at a time and process them. A thrown error lets
  * pg-boss retry the job (after JOB_SETTINGS.retryDelay seconds, up to retryLimit times);
  * on the last attempt the version is marked failed so no run waits forever.
  */
-export async function startWorker(log: (line: string) => void = console.log): Promise<() => Promise<void>> {
+export async function startWorker(log: (line: string) => void = console.log, hooks: ProcessHooks = {}): Promise<() => Promise<void>> {
   const boss = await queue();
   await boss.work<{ versionId: string }>(
     PROCESS_RUN_VERSION,
@@ -14,7 +14,7 @@ export async function startWorker(log: (line: string) => void = console.log): Pr
     async ([job]) => {
       const started = Date.now();
       try {
-        const outcome = await processRunVersion(job.data.versionId);
+        const outcome = await processRunVersion(job.data.versionId, hooks);
         log(`[worker] version ${job.data.versionId}: ${outcome} in ${Date.now() - started} ms`);
       } catch (error) {
         log(`[worker] version ${job.data.versionId}: attempt ${job.retryCount + 1} failed: ${(error as Error).message}`);

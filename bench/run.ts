@@ -76,7 +76,11 @@ async function runStep(step: Step, table: ColumnTable): Promise<void> {
     await parseCsvStream(createReadStream(csvFile(table.length)));
   } else if (step === "still") {
     const c = table.columns;
-    findStillPeriods(c.time, { x: c["accel0.x"], y: c["accel0.y"], z: c["accel0.z"] }, { gyro: { x: c["gyro0.x"], y: c["gyro0.y"], z: c["gyro0.z"] } });
+    findStillPeriods(
+      c.time,
+      { x: c["accel0.x"], y: c["accel0.y"], z: c["accel0.z"] },
+      { gyro: { x: c["gyro0.x"], y: c["gyro0.y"], z: c["gyro0.z"] } },
+    );
   } else if (step === "analyse" || step === "analyse-no-bootstrap") {
     analyseCapture(table, { units: { magnetic: { kind: "magnetic", unit: "uT" } }, bootstrap: step === "analyse" });
   }
@@ -116,13 +120,13 @@ async function runEllipsoidBench(): Promise<void> {
     process.stdout.write("Ellipsoid fit: bench/fit-bench.ts not present, skipped.\n\n");
     return;
   }
-  const module = (await import(pathToFileURL(file).href)) as { benchEllipsoidFit?: () => unknown };
-  if (typeof module.benchEllipsoidFit !== "function") {
+  const fitBench = (await import(pathToFileURL(file).href)) as { benchEllipsoidFit?: () => unknown };
+  if (typeof fitBench.benchEllipsoidFit !== "function") {
     process.stdout.write("Ellipsoid fit: bench/fit-bench.ts has no benchEllipsoidFit export, skipped.\n\n");
     return;
   }
   process.stdout.write("Ellipsoid fit (bench/fit-bench.ts):\n");
-  const result = await module.benchEllipsoidFit();
+  const result = await fitBench.benchEllipsoidFit();
   if (result !== undefined) process.stdout.write(`${typeof result === "string" ? result : JSON.stringify(result, null, 2)}\n`);
   process.stdout.write("\n");
 }
@@ -136,9 +140,13 @@ async function main(): Promise<void> {
   await runEllipsoidBench();
   for (const samples of SIZES) csvFile(samples);
   process.stdout.write(`Capture analysis (node ${process.version}, one core, each row a fresh process):\n`);
-  process.stdout.write(`${pad("step", 22)} ${pad("samples", 9)} ${pad("seconds", 9)} ${pad("samples/s", 12)} ${pad("peak MiB", 9)} ${pad("above base", 11)}\n`);
+  process.stdout.write(
+    `${pad("step", 22)} ${pad("samples", 9)} ${pad("seconds", 9)} ${pad("samples/s", 12)} ${pad("peak MiB", 9)} ${pad("above base", 11)}\n`,
+  );
   const startUp = runChild("start-up", 0);
-  process.stdout.write(`${pad("start-up (no data)", 22)} ${pad("", 9)} ${pad("", 9)} ${pad("", 12)} ${pad(startUp.peakRssMiB.toFixed(0), 9)}\n`);
+  process.stdout.write(
+    `${pad("start-up (no data)", 22)} ${pad("", 9)} ${pad("", 9)} ${pad("", 12)} ${pad(startUp.peakRssMiB.toFixed(0), 9)}\n`,
+  );
   for (const samples of SIZES) {
     const data = runChild("data", samples);
     for (const step of STEPS.filter((s) => s !== "start-up")) {

@@ -113,7 +113,11 @@ function residualsAndJacobian(means: Vec3[], p: number[], model: AccelModel, gra
     for (let k = 0; k < 3; k++) jacobian.set(i, k, -cu[k] / n);
     for (let k = 0; k < 3; k++) jacobian.set(i, 3 + k, (u[k] * d[k]) / n);
     if (model === "full") {
-      const pairs: [number, number][] = [[0, 1], [0, 2], [1, 2]];
+      const pairs: [number, number][] = [
+        [0, 1],
+        [0, 2],
+        [1, 2],
+      ];
       pairs.forEach(([k, l], j) => jacobian.set(i, 6 + j, (u[k] * d[l] + u[l] * d[k]) / n));
     }
   });

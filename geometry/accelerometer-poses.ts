@@ -91,15 +91,21 @@ interface PoseStats {
 
 function poseStats(accel: Vec3Series, start: number, end: number, blockSamples: number): PoseStats {
   const { x, y, z } = accel;
-  let sx = 0, sy = 0, sz = 0;
+  let sx = 0,
+    sy = 0,
+    sz = 0;
   for (let i = start; i < end; i++) {
-    sx += x[i]; sy += y[i]; sz += z[i];
+    sx += x[i];
+    sy += y[i];
+    sz += z[i];
   }
   const count = end - start;
   const mean: Vec3 = [sx / count, sy / count, sz / count];
   let squares = 0;
   for (let i = start; i < end; i++) {
-    const dx = x[i] - mean[0], dy = y[i] - mean[1], dz = z[i] - mean[2];
+    const dx = x[i] - mean[0],
+      dy = y[i] - mean[1],
+      dz = z[i] - mean[2];
     squares += dx * dx + dy * dy + dz * dz;
   }
   // Wobble from block means, so that white sensor noise (which averages away) does not count.
@@ -107,9 +113,13 @@ function poseStats(accel: Vec3Series, start: number, end: number, blockSamples: 
   let angleSquares = 0;
   let blocks = 0;
   for (let b = start; b + blockSamples <= end; b += blockSamples) {
-    let bx = 0, by = 0, bz = 0;
+    let bx = 0,
+      by = 0,
+      bz = 0;
     for (let i = b; i < b + blockSamples; i++) {
-      bx += x[i]; by += y[i]; bz += z[i];
+      bx += x[i];
+      by += y[i];
+      bz += z[i];
     }
     const blockNorm = Math.hypot(bx, by, bz);
     const cosine = (bx * mean[0] + by * mean[1] + bz * mean[2]) / (blockNorm * meanNorm);

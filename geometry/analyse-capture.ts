@@ -125,7 +125,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   }
   const time = capture.columns.time;
   const durationS = capture.length > 1 ? time[capture.length - 1] - time[0] : 0;
-  const sampleRateHz = durationS > 0 ? (capture.length - 1) / durationS : options.sampleRateHz ?? 50;
+  const sampleRateHz = durationS > 0 ? (capture.length - 1) / durationS : (options.sampleRateHz ?? 50);
 
   // References for the site and date.
   const site = options.site ?? null;
@@ -134,7 +134,9 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   if (site && date) {
     magnetic = magneticReference(site, date);
     if (!magnetic.withinValidity) {
-      notes.push(`The date ${date.toISOString().slice(0, 10)} lies outside ${magnetic.modelName} (${magnetic.validFrom.toISOString().slice(0, 10)} to ${magnetic.validTo.toISOString().slice(0, 10)}); the field was evaluated at the nearest valid date.`);
+      notes.push(
+        `The date ${date.toISOString().slice(0, 10)} lies outside ${magnetic.modelName} (${magnetic.validFrom.toISOString().slice(0, 10)} to ${magnetic.validTo.toISOString().slice(0, 10)}); the field was evaluated at the nearest valid date.`,
+      );
     }
   }
   const gravityMps2 = site ? normalGravity(site.latitudeDeg, site.altitudeM) : STANDARD_GRAVITY_MPS2;
@@ -228,10 +230,16 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   // Redundant accelerometers and gyroscopes against the first of each.
   const accelerometerAgreement: AccelerometerAgreement[] = [];
   for (const other of accelerometers.slice(1)) {
-    const agreement = compareAccelerometers([accelerometers[0].sensor, other.sensor], accel0!, seriesOf(capture, other.sensor), stillPeriods, {
-      a: accelCorrection,
-      b: accelerometerCorrection(other.calibration),
-    });
+    const agreement = compareAccelerometers(
+      [accelerometers[0].sensor, other.sensor],
+      accel0!,
+      seriesOf(capture, other.sensor),
+      stillPeriods,
+      {
+        a: accelCorrection,
+        b: accelerometerCorrection(other.calibration),
+      },
+    );
     if (agreement) {
       accelerometerAgreement.push(agreement);
       checks.push(accelerometerAgreementCheck(agreement, thresholds));

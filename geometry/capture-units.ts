@@ -10,15 +10,7 @@
  */
 import { sensorsInFields } from "./column-names";
 import type { CaptureField, ColumnTable } from "./types";
-import {
-  canonicalFactor,
-  guessAccelerationUnit,
-  guessRateUnit,
-  guessTimeUnit,
-  unitLabel,
-  type QuantityKind,
-  type UnitSpec,
-} from "./units";
+import { canonicalFactor, guessAccelerationUnit, guessRateUnit, guessTimeUnit, unitLabel, type QuantityKind, type UnitSpec } from "./units";
 
 /** Units stated by the caller, one per kind. */
 export type CaptureUnits = { [K in QuantityKind]?: UnitSpec<K> };

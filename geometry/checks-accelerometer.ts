@@ -56,7 +56,8 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
       threshold: null,
       unit: null,
       explanation: `No accelerometer calibration was fitted: ${result.detail}.`,
-      remedy: "Hold the vehicle still for a few seconds in each of the six attitudes: level, upside down, nose down, nose up, on the left side and on the right side.",
+      remedy:
+        "Hold the vehicle still for a few seconds in each of the six attitudes: level, upside down, nose down, nose up, on the left side and on the right side.",
       source: "common practice",
     });
   }
@@ -76,7 +77,16 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
   }
 
   if (input.unitsScaledToGravity) {
-    checks.push(skippedCheck(thresholds, "accel.gravity", "Gravity as read", sensor, "The accelerometer's units were not stated, so its readings were scaled to standard gravity; comparing them with gravity again would prove nothing.", "State the accelerometer's units (m/s², g, mg, or counts with a scale)."));
+    checks.push(
+      skippedCheck(
+        thresholds,
+        "accel.gravity",
+        "Gravity as read",
+        sensor,
+        "The accelerometer's units were not stated, so its readings were scaled to standard gravity; comparing them with gravity again would prove nothing.",
+        "State the accelerometer's units (m/s², g, mg, or counts with a scale).",
+      ),
+    );
   } else {
     const deviation = (100 * Math.abs(result.rawGravityMps2 - input.gravity.valueMps2)) / input.gravity.valueMps2;
     checks.push(
@@ -87,7 +97,10 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
         measured: deviation,
         explain: (status) => ({
           explanation: `Before scale correction the sensor reads gravity as ${fmt(result.rawGravityMps2, 3)} m/s²; ${input.gravity.source} is ${fmt(input.gravity.valueMps2, 4)} m/s², ${fmt(deviation, 2)}% apart.`,
-          remedy: status === "pass" ? null : "Check the units the logger writes. If they are right, the sensor's sensitivity is far from its specification; consider replacing the board.",
+          remedy:
+            status === "pass"
+              ? null
+              : "Check the units the logger writes. If they are right, the sensor's sensitivity is far from its specification; consider replacing the board.",
         }),
       }),
     );
@@ -103,7 +116,10 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
       digits: 3,
       explain: (status) => ({
         explanation: `Offsets are x ${fmt(result.offset[0], 3)}, y ${fmt(result.offset[1], 3)}, z ${fmt(result.offset[2], 3)} m/s²; the calibration removes them.`,
-        remedy: status === "pass" ? null : "An offset this large often follows a hard knock or board stress; check the board's mounting and repeat the calibration. If it persists, replace the board.",
+        remedy:
+          status === "pass"
+            ? null
+            : "An offset this large often follows a hard knock or board stress; check the board's mounting and repeat the calibration. If it persists, replace the board.",
       }),
     }),
   );
@@ -124,7 +140,15 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
 
   const parameterCount = result.model === "full" ? 9 : 6;
   if (result.posesUsed <= parameterCount) {
-    checks.push(skippedCheck(thresholds, "accel.residual", "Accelerometer fit residual", sensor, `${result.posesUsed} holds fit ${parameterCount} parameters exactly, so the residual says nothing; extra holds between the faces would make it meaningful.`));
+    checks.push(
+      skippedCheck(
+        thresholds,
+        "accel.residual",
+        "Accelerometer fit residual",
+        sensor,
+        `${result.posesUsed} holds fit ${parameterCount} parameters exactly, so the residual says nothing; extra holds between the faces would make it meaningful.`,
+      ),
+    );
   } else {
     checks.push(
       gradedCheck(thresholds, {
@@ -135,7 +159,10 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
         digits: 3,
         explain: (status) => ({
           explanation: `After correction the holds read gravity to within ${fmt(result.residualRmsMps2, 3)} m/s² RMS.`,
-          remedy: status === "pass" ? null : "One or more holds moved or were taken while the vehicle was accelerating; repeat them on a steady surface.",
+          remedy:
+            status === "pass"
+              ? null
+              : "One or more holds moved or were taken while the vehicle was accelerating; repeat them on a steady surface.",
         }),
       }),
     );
@@ -153,7 +180,10 @@ export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: 
         measured: Math.max(Math.abs(rollDeg), Math.abs(pitchDeg)),
         explain: (status) => ({
           explanation: `In the level hold the board sat at roll ${fmt(rollDeg, 2)}° and pitch ${fmt(pitchDeg, 2)}°.`,
-          remedy: status === "pass" ? null : "Level the vehicle on a flat surface for the level hold, or check that the board is mounted square to the frame.",
+          remedy:
+            status === "pass"
+              ? null
+              : "Level the vehicle on a flat surface for the level hold, or check that the board is mounted square to the frame.",
         }),
       }),
     );
@@ -170,10 +200,11 @@ export function facesCheck(sensor: string, faces: FaceSummary, thresholds: Thres
     digits: 0,
     explain: (status) => ({
       explanation:
-        faces.missingFaces.length === 0
-          ? "All six faces were held still."
-          : `Missing: ${faces.missingFaces.map(faceName).join(", ")}.`,
-      remedy: status === "pass" ? null : `Add a still hold of a few seconds for each missing face: ${faces.missingFaces.map((face) => FACE_WORDS[face]).join(", ")}.`,
+        faces.missingFaces.length === 0 ? "All six faces were held still." : `Missing: ${faces.missingFaces.map(faceName).join(", ")}.`,
+      remedy:
+        status === "pass"
+          ? null
+          : `Add a still hold of a few seconds for each missing face: ${faces.missingFaces.map((face) => FACE_WORDS[face]).join(", ")}.`,
     }),
   });
 }
@@ -208,7 +239,10 @@ export function wobbleCheck(sensor: string, poses: AccelerometerPose[], threshol
     measured: worst.wobbleDeg,
     explain: (status) => ({
       explanation: `The shakiest hold, ${faceName(worst.face)}, wobbled ${fmt(worst.wobbleDeg, 2)}° RMS over ${fmt(worst.durationS)} s.`,
-      remedy: status === "pass" ? null : "Rest the vehicle on a firm surface rather than holding it in the air, and wait a moment after placing it before the hold counts.",
+      remedy:
+        status === "pass"
+          ? null
+          : "Rest the vehicle on a firm surface rather than holding it in the air, and wait a moment after placing it before the hold counts.",
     }),
   });
 }
@@ -217,7 +251,14 @@ export function wobbleCheck(sensor: string, poses: AccelerometerPose[], threshol
 export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefusal, thresholds: ThresholdTable): Check[] {
   if (!result.ok) {
     return [
-      skippedCheck(thresholds, "gyro.bias", "Gyroscope bias", sensor, result.detail, "Hold the vehicle still for a few seconds at the start of the capture."),
+      skippedCheck(
+        thresholds,
+        "gyro.bias",
+        "Gyroscope bias",
+        sensor,
+        result.detail,
+        "Hold the vehicle still for a few seconds at the start of the capture.",
+      ),
       skippedCheck(thresholds, "gyro.noise", "Gyroscope noise", sensor, result.detail),
     ];
   }
@@ -232,7 +273,10 @@ export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefus
       measured: biasDeg,
       explain: (status) => ({
         explanation: `At rest the gyroscope reads ${fmt(biasDeg, 2)} °/s (x ${fmt(result.biasRadPerS[0] / DEG, 2)}, y ${fmt(result.biasRadPerS[1] / DEG, 2)}, z ${fmt(result.biasRadPerS[2] / DEG, 2)}).`,
-        remedy: status === "pass" ? null : "Let the board warm up and keep the vehicle still when it powers on; a bias this large that does not settle means a failing sensor.",
+        remedy:
+          status === "pass"
+            ? null
+            : "Let the board warm up and keep the vehicle still when it powers on; a bias this large that does not settle means a failing sensor.",
       }),
     }),
     gradedCheck(thresholds, {
@@ -243,7 +287,10 @@ export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefus
       digits: 3,
       explain: (status) => ({
         explanation: `At rest the reading scatters by ${fmt(noiseDeg, 3)} °/s RMS.`,
-        remedy: status === "pass" ? null : "Check for vibration reaching the board (fans, a running motor) and for the board's mounting; otherwise the sensor is noisy.",
+        remedy:
+          status === "pass"
+            ? null
+            : "Check for vibration reaching the board (fans, a running motor) and for the board's mounting; otherwise the sensor is noisy.",
       }),
     }),
   ];

@@ -24,7 +24,8 @@ import { norm } from "./vector";
 export const MOTOR_SAFETY_CAUTION =
   "Before any capture that powers the motors: propellers off, vehicle restrained, battery handled as its maker directs, people clear. Local aviation rules, the vehicle maker's manual and licensed practice come first.";
 
-const SITE_ADVICE = "Calibrate outdoors, several metres from steel, parked vehicles and reinforced concrete, with nothing magnetic in your pockets.";
+const SITE_ADVICE =
+  "Calibrate outdoors, several metres from steel, parked vehicles and reinforced concrete, with nothing magnetic in your pockets.";
 
 export interface MountingComparison {
   /** The compass the rotation is measured against, e.g. "mag0". */
@@ -98,8 +99,13 @@ export function coverageCheck(sensor: string, coverage: CoverageResult, threshol
     explain: (status) => ({
       explanation:
         `The field directions reached ${fmt(percent)}% of ${coverage.cellCount} equal-area patches of the sphere` +
-        (status === "pass" ? ", enough for every side of the fit to be pinned down." : ". The fit can only trust the directions it has seen."),
-      remedy: status === "pass" ? null : `Repeat the capture turning the vehicle through every attitude, upside down included. Next, try: ${coverage.nextOrientation}.`,
+        (status === "pass"
+          ? ", enough for every side of the fit to be pinned down."
+          : ". The fit can only trust the directions it has seen."),
+      remedy:
+        status === "pass"
+          ? null
+          : `Repeat the capture turning the vehicle through every attitude, upside down included. Next, try: ${coverage.nextOrientation}.`,
     }),
   });
 }
@@ -125,7 +131,8 @@ export function fitCheck(sensor: string, result: MagnetometerResult): Check {
       planar: "The vehicle was turned about one axis only. Turn it through every attitude: nose up and down, on each side, upside down.",
       "small-cap": "The readings cover only a small patch of directions. Turn the vehicle through every attitude, upside down included.",
       "non-finite": "The readings contain values that are not numbers; check the logger and the file.",
-      "not-an-ellipsoid": "The readings do not lie on any ellipsoid: the compass may have been moved near metal during the capture, or the data are not from one sensor. Repeat the capture in a clear spot.",
+      "not-an-ellipsoid":
+        "The readings do not lie on any ellipsoid: the compass may have been moved near metal during the capture, or the data are not from one sensor. Repeat the capture in a clear spot.",
     };
     return {
       id: "mag.fit",
@@ -181,14 +188,30 @@ export function fieldVsModelCheck(
 ): Check {
   const title = "Field strength against the model";
   if (!unitsPhysical) {
-    return skippedCheck(thresholds, "mag.field-vs-model", title, sensor, "The magnetometer's units are not known, so its field strength cannot be compared with the model.", "State the units (for example µT, mG, or counts with a scale).");
+    return skippedCheck(
+      thresholds,
+      "mag.field-vs-model",
+      title,
+      sensor,
+      "The magnetometer's units are not known, so its field strength cannot be compared with the model.",
+      "State the units (for example µT, mG, or counts with a scale).",
+    );
   }
   if (!reference) {
-    return skippedCheck(thresholds, "mag.field-vs-model", title, sensor, "No site was given, so the expected field is not known.", "Give the site's latitude, longitude and altitude.");
+    return skippedCheck(
+      thresholds,
+      "mag.field-vs-model",
+      title,
+      sensor,
+      "No site was given, so the expected field is not known.",
+      "Give the site's latitude, longitude and altitude.",
+    );
   }
   const expected = reference.fieldStrengthMicrotesla;
   const deviation = (100 * Math.abs(result.fieldStrength - expected)) / expected;
-  const validity = reference.withinValidity ? "" : ` The date lies outside the model's validity (${reference.modelName}); the expected value is indicative.`;
+  const validity = reference.withinValidity
+    ? ""
+    : ` The date lies outside the model's validity (${reference.modelName}); the expected value is indicative.`;
   return gradedCheck(thresholds, {
     id: "mag.field-vs-model",
     title,
@@ -197,15 +220,30 @@ export function fieldVsModelCheck(
     digits: 1,
     explain: (status) => ({
       explanation: `The fitted field is ${fmt(result.fieldStrength)} µT; ${reference.modelName} expects ${fmt(expected)} µT at the site, a difference of ${fmt(deviation)}%.${validity}`,
-      remedy: status === "pass" ? null : `A field stronger or weaker than the Earth's here means something magnetic near the capture spot, or wrong units. ${SITE_ADVICE}`,
+      remedy:
+        status === "pass"
+          ? null
+          : `A field stronger or weaker than the Earth's here means something magnetic near the capture spot, or wrong units. ${SITE_ADVICE}`,
     }),
   });
 }
 
-export function fieldPlausibleCheck(sensor: string, result: MagnetometerCalibration, unitsPhysical: boolean, thresholds: ThresholdTable): Check {
+export function fieldPlausibleCheck(
+  sensor: string,
+  result: MagnetometerCalibration,
+  unitsPhysical: boolean,
+  thresholds: ThresholdTable,
+): Check {
   const title = "Field strength on Earth";
   if (!unitsPhysical) {
-    return skippedCheck(thresholds, "mag.field-plausible", title, sensor, "The magnetometer's units are not known.", "State the units (for example µT, mG, or counts with a scale).");
+    return skippedCheck(
+      thresholds,
+      "mag.field-plausible",
+      title,
+      sensor,
+      "The magnetometer's units are not known.",
+      "State the units (for example µT, mG, or counts with a scale).",
+    );
   }
   return gradedCheck(thresholds, {
     id: "mag.field-plausible",
@@ -216,8 +254,13 @@ export function fieldPlausibleCheck(sensor: string, result: MagnetometerCalibrat
     explain: (status) => ({
       explanation:
         `The fitted field is ${fmt(result.fieldStrength)} µT. The Earth's field at the surface lies between about 22 and 67 µT everywhere.` +
-        (status === "fail" ? " A value this far outside is almost always a unit mistake (gauss, milligauss, nanotesla or raw counts)." : ""),
-      remedy: status === "pass" ? null : "Check the units the logger writes and state them; if they are right, the capture spot is strongly disturbed.",
+        (status === "fail"
+          ? " A value this far outside is almost always a unit mistake (gauss, milligauss, nanotesla or raw counts)."
+          : ""),
+      remedy:
+        status === "pass"
+          ? null
+          : "Check the units the logger writes and state them; if they are right, the capture spot is strongly disturbed.",
     }),
   });
 }
@@ -258,7 +301,10 @@ export function softIronCheck(sensor: string, result: MagnetometerCalibration, t
     digits: 3,
     explain: (status) => ({
       explanation: `The readings form an ellipsoid whose longest axis is ${fmt(ratio, 3)} times its shortest (1 is a perfect sphere). Nearby iron and steel bend the field this way.`,
-      remedy: status === "pass" ? null : "Move the compass away from steel parts, batteries and motor cans, or replace steel fasteners near it with brass, aluminium or nylon.",
+      remedy:
+        status === "pass"
+          ? null
+          : "Move the compass away from steel parts, batteries and motor cans, or replace steel fasteners near it with brass, aluminium or nylon.",
     }),
   });
 }
@@ -303,9 +349,23 @@ export function dipCheck(
   unavailableReason?: string,
 ): Check {
   const title = "Inclination (dip)";
-  if (!reference) return skippedCheck(thresholds, "mag.dip", title, sensor, "No site was given, so the expected inclination is not known.", "Give the site's latitude, longitude and altitude.");
+  if (!reference)
+    return skippedCheck(
+      thresholds,
+      "mag.dip",
+      title,
+      sensor,
+      "No site was given, so the expected inclination is not known.",
+      "Give the site's latitude, longitude and altitude.",
+    );
   if (!dip) {
-    return skippedCheck(thresholds, "mag.dip", title, sensor, unavailableReason ?? "No still period with both the accelerometer and this compass was found.");
+    return skippedCheck(
+      thresholds,
+      "mag.dip",
+      title,
+      sensor,
+      unavailableReason ?? "No still period with both the accelerometer and this compass was found.",
+    );
   }
   const difference = Math.abs(dip.dipDeg - reference.inclinationDeg);
   return gradedCheck(thresholds, {
@@ -328,7 +388,14 @@ export function mountingCheck(sensor: string, mounting: MountingComparison, thre
   const title = `Mounting rotation against ${mounting.reference}`;
   const { result } = mounting;
   if (!result.determined) {
-    return skippedCheck(thresholds, "mag.mounting", title, sensor, "The capture did not turn the vehicle enough to fix the rotation between the compasses.", "Turn the vehicle through every attitude.");
+    return skippedCheck(
+      thresholds,
+      "mag.mounting",
+      title,
+      sensor,
+      "The capture did not turn the vehicle enough to fix the rotation between the compasses.",
+      "Turn the vehicle through every attitude.",
+    );
   }
   const fromDeclared = angleBetweenRotationsDeg(result.rotation, mounting.expected);
   const matchesDeclared = angleBetweenRotationsDeg(result.nearest.matrix, mounting.expected) < 1;

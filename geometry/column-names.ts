@@ -46,11 +46,13 @@ const SENSOR_PREFIXES: Record<SensorFamily, string[]> = {
 };
 
 const VECTOR_PATTERN = new RegExp(
-  `^(${Object.values(SENSOR_PREFIXES).flat().sort((p, q) => q.length - p.length).join("|")})(\\d*)([xyz])(\\d*)$`,
+  `^(${Object.values(SENSOR_PREFIXES)
+    .flat()
+    .sort((p, q) => q.length - p.length)
+    .join("|")})(\\d*)([xyz])(\\d*)$`,
 );
 const TIME_PATTERN = /^(timestamp|timesinceboot|timeboot|elapsed|time|t)(s|sec|ms|msec|millis|us|usec|micros|ns)?$/;
-const CURRENT_PATTERN =
-  /^(batterycurrent|battcurrent|batcurrent|motorcurrent|batcurr|current|curr|ibatt|ibat|amps|amp|i)(a|ma|amps)?$/;
+const CURRENT_PATTERN = /^(batterycurrent|battcurrent|batcurrent|motorcurrent|batcurr|current|curr|ibatt|ibat|amps|amp|i)(a|ma|amps)?$/;
 const THROTTLE_PATTERN = /^(throttle|thrust|thr)(pct|percent)?$/;
 const CANONICAL_PATTERN = /^(?:(mag|accel|gyro)\d+\.[xyz]|time|current|throttle)$/;
 

@@ -30,7 +30,9 @@ export interface DipMeasurement {
 }
 
 function correctedMean(series: Vec3Series, start: number, end: number, correction?: AffineCorrection): Vec3 {
-  let sx = 0, sy = 0, sz = 0;
+  let sx = 0,
+    sy = 0,
+    sz = 0;
   for (let i = start; i < end; i++) {
     sx += series.x[i];
     sy += series.y[i];
@@ -77,7 +79,6 @@ export function measureDip(
   }
   if (samples === 0) return null;
   const dipDeg = weighted / samples;
-  const spread =
-    results.length > 1 ? Math.sqrt(results.reduce((t, r) => t + (r.dipDeg - dipDeg) ** 2, 0) / (results.length - 1)) : 0;
+  const spread = results.length > 1 ? Math.sqrt(results.reduce((t, r) => t + (r.dipDeg - dipDeg) ** 2, 0) / (results.length - 1)) : 0;
   return { dipDeg, dipSpreadDeg: spread, periods: results, samplesUsed: samples };
 }

@@ -42,10 +42,7 @@ export const WGS84 = {
 export function normalGravityOnEllipsoid(latitudeDeg: number): number {
   const sinLat = Math.sin((latitudeDeg * Math.PI) / 180);
   const sin2 = sinLat * sinLat;
-  return (
-    (WGS84.equatorialGravityMps2 * (1 + WGS84.somiglianaK * sin2)) /
-    Math.sqrt(1 - WGS84.firstEccentricitySquared * sin2)
-  );
+  return (WGS84.equatorialGravityMps2 * (1 + WGS84.somiglianaK * sin2)) / Math.sqrt(1 - WGS84.firstEccentricitySquared * sin2);
 }
 
 /**

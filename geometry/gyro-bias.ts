@@ -71,9 +71,7 @@ export function estimateGyroBias(rate: Vec3Series, periods: StillPeriod[]): Gyro
   }
   const bias: Vec3 = [total[0] / samples, total[1] / samples, total[2] / samples];
   const noise: Vec3 = [0, 1, 2].map((k) => Math.sqrt(curvatureSquares[k] / curvatureCount / 6)) as Vec3;
-  const biasDriftRadPerS = Math.max(
-    ...periodMeans.map(({ mean }) => Math.hypot(mean[0] - bias[0], mean[1] - bias[1], mean[2] - bias[2])),
-  );
+  const biasDriftRadPerS = Math.max(...periodMeans.map(({ mean }) => Math.hypot(mean[0] - bias[0], mean[1] - bias[1], mean[2] - bias[2])));
   return {
     ok: true,
     biasRadPerS: bias,

@@ -71,7 +71,9 @@ export function applyAffine(series: Vec3Series, correction: AffineCorrection): V
   const [[a, b, c], [d, e, f], [g, h, k]] = correction.matrix;
   const [ox, oy, oz] = correction.offset;
   for (let i = 0; i < n; i++) {
-    const x = series.x[i] - ox, y = series.y[i] - oy, z = series.z[i] - oz;
+    const x = series.x[i] - ox,
+      y = series.y[i] - oy,
+      z = series.z[i] - oz;
     out.x[i] = a * x + b * y + c * z;
     out.y[i] = d * x + e * y + f * z;
     out.z[i] = g * x + h * y + k * z;
@@ -112,7 +114,10 @@ export function analyseMagnetometers(input: MagnetometerAnalysisInput): Magnetom
   const couplingColumn: CouplingInputKind | null = capture.columns.current ? "current" : capture.columns.throttle ? "throttle" : null;
   const couplingInput = couplingColumn ? capture.columns[couplingColumn] : null;
   const mask = couplingInput ? couplingMask(couplingInput, stillPeriods) : null;
-  if (couplingInput && !mask) notes.push(`A ${couplingColumn} column is present but no still stretch where it changes was found, so current coupling was not measured.`);
+  if (couplingInput && !mask)
+    notes.push(
+      `A ${couplingColumn} column is present but no still stretch where it changes was found, so current coupling was not measured.`,
+    );
 
   let first: { sensor: string; corrected: Vec3Series; declared: Mat3 } | null = null;
   return input.sensors.map((sensor, index) => {
@@ -152,11 +157,15 @@ export function analyseMagnetometers(input: MagnetometerAnalysisInput): Magnetom
         mountingComparison = { ...comparison, fromDeclaredDeg: angleBetweenRotationsDeg(result.rotation, expected) };
       }
       if (couplingInput && mask && couplingColumn) {
-        coupling = currentCoupling(applyAffine(raw, { offset: logged.offset, matrix: mulMat(declaredRotation.matrix, logged.matrix) }), couplingInput, {
-          kind: couplingColumn,
-          fieldStrength: calibration.fieldStrength,
-          mask,
-        });
+        coupling = currentCoupling(
+          applyAffine(raw, { offset: logged.offset, matrix: mulMat(declaredRotation.matrix, logged.matrix) }),
+          couplingInput,
+          {
+            kind: couplingColumn,
+            fieldStrength: calibration.fieldStrength,
+            mask,
+          },
+        );
       }
     } else if (couplingInput && mask && couplingColumn && input.units[sensor].physical && reference) {
       // Without a calibration the slope is still sound (an offset does not change it); the

@@ -87,12 +87,24 @@ export function compareAccelerometers(
 export function compareGyroscopes(names: [string, string], a: Vec3Series, b: Vec3Series, mask?: Uint8Array): GyroscopeAgreement | null {
   const n = Math.min(a.x.length, b.x.length);
   let count = 0;
-  let dx = 0, dy = 0, dz = 0, dxx = 0, dyy = 0, dzz = 0, rateSquares = 0;
+  let dx = 0,
+    dy = 0,
+    dz = 0,
+    dxx = 0,
+    dyy = 0,
+    dzz = 0,
+    rateSquares = 0;
   for (let i = 0; i < n; i++) {
     if (mask && mask[i] === 0) continue;
-    const ex = b.x[i] - a.x[i], ey = b.y[i] - a.y[i], ez = b.z[i] - a.z[i];
-    dx += ex; dy += ey; dz += ez;
-    dxx += ex * ex; dyy += ey * ey; dzz += ez * ez;
+    const ex = b.x[i] - a.x[i],
+      ey = b.y[i] - a.y[i],
+      ez = b.z[i] - a.z[i];
+    dx += ex;
+    dy += ey;
+    dz += ez;
+    dxx += ex * ex;
+    dyy += ey * ey;
+    dzz += ez * ez;
     rateSquares += a.x[i] * a.x[i] + a.y[i] * a.y[i] + a.z[i] * a.z[i];
     count++;
   }

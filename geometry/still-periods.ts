@@ -89,7 +89,12 @@ function markLowVariance(series: Vec3Series, halfWindow: number, threshold: numb
   const x0 = x[0];
   const y0 = y[0];
   const z0 = z[0];
-  let sx = 0, sy = 0, sz = 0, sxx = 0, syy = 0, szz = 0;
+  let sx = 0,
+    sy = 0,
+    sz = 0,
+    sxx = 0,
+    syy = 0,
+    szz = 0;
   let lo = 0;
   let hi = -1; // window is [lo, hi]
   const limit = threshold * threshold;
@@ -98,14 +103,26 @@ function markLowVariance(series: Vec3Series, halfWindow: number, threshold: numb
     const wantLo = Math.max(0, i - halfWindow);
     while (hi < wantHi) {
       hi++;
-      const dx = x[hi] - x0, dy = y[hi] - y0, dz = z[hi] - z0;
-      sx += dx; sy += dy; sz += dz;
-      sxx += dx * dx; syy += dy * dy; szz += dz * dz;
+      const dx = x[hi] - x0,
+        dy = y[hi] - y0,
+        dz = z[hi] - z0;
+      sx += dx;
+      sy += dy;
+      sz += dz;
+      sxx += dx * dx;
+      syy += dy * dy;
+      szz += dz * dz;
     }
     while (lo < wantLo) {
-      const dx = x[lo] - x0, dy = y[lo] - y0, dz = z[lo] - z0;
-      sx -= dx; sy -= dy; sz -= dz;
-      sxx -= dx * dx; syy -= dy * dy; szz -= dz * dz;
+      const dx = x[lo] - x0,
+        dy = y[lo] - y0,
+        dz = z[lo] - z0;
+      sx -= dx;
+      sy -= dy;
+      sz -= dz;
+      sxx -= dx * dx;
+      syy -= dy * dy;
+      szz -= dz * dz;
       lo++;
     }
     const count = hi - lo + 1;
@@ -126,7 +143,9 @@ function markLowRate(series: Vec3Series, bias: [number, number, number], halfWin
   let hi = -1;
   const limit = threshold * threshold;
   const square = (i: number) => {
-    const dx = x[i] - bias[0], dy = y[i] - bias[1], dz = z[i] - bias[2];
+    const dx = x[i] - bias[0],
+      dy = y[i] - bias[1],
+      dz = z[i] - bias[2];
     return dx * dx + dy * dy + dz * dz;
   };
   for (let i = 0; i < n; i++) {
@@ -203,9 +222,17 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
   const blockSize = halfWindow;
   const cosLimit = Math.cos((maxDriftDeg * Math.PI) / 180);
   const turnLimit = (maxDriftDeg * Math.PI) / 180;
-  let anchorX = 0, anchorY = 0, anchorZ = 0, hasAnchor = false;
-  let blockStart = 0, bx = 0, by = 0, bz = 0;
-  let turnX = 0, turnY = 0, turnZ = 0;
+  let anchorX = 0,
+    anchorY = 0,
+    anchorZ = 0,
+    hasAnchor = false;
+  let blockStart = 0,
+    bx = 0,
+    by = 0,
+    bz = 0;
+  let turnX = 0,
+    turnY = 0,
+    turnZ = 0;
   for (let i = 0; i < n; i++) {
     if (mask[i] === 1) {
       if (start >= 0 && timeS[i] - timeS[i - 1] > gapS) close(i);

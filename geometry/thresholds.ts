@@ -25,7 +25,8 @@ export const THRESHOLDS = {
     warnBelow: 75,
     failBelow: 50,
     unit: "% of cells",
-    source: "common practice, checked against simulated captures: a minute's full tumble fills every cell (3 samples each), the upper half of the sphere about half, turning about one axis under a quarter",
+    source:
+      "common practice, checked against simulated captures: a minute's full tumble fills every cell (3 samples each), the upper half of the sphere about half, turning about one axis under a quarter",
     basis: "where half the directions were never visited the fit can trade offset against soft iron along the missing ones",
   },
   "mag.gap": {
@@ -55,7 +56,8 @@ export const THRESHOLDS = {
     failBelow: 15,
     failAbove: 100,
     unit: "µT",
-    source: "WMM2025 sea-level extremes (22–67 µT, computed on a 1° grid; the remembered 25–65 µT is exceeded in the South Atlantic anomaly); fail limits common practice",
+    source:
+      "WMM2025 sea-level extremes (22–67 µT, computed on a 1° grid; the remembered 25–65 µT is exceeded in the South Atlantic anomaly); fail limits common practice",
     basis: "no place on the Earth's surface has a main field outside 22–67 µT",
   },
   "mag.hard-iron": {
@@ -63,14 +65,16 @@ export const THRESHOLDS = {
     failAbove: 150,
     unit: "% of field",
     source: "common practice",
-    basis: "an offset larger than the Earth's field itself points to a magnetised part or a current loop close to the compass and eats the sensor's range",
+    basis:
+      "an offset larger than the Earth's field itself points to a magnetised part or a current loop close to the compass and eats the sensor's range",
   },
   "mag.soft-iron": {
     warnAbove: 1.15,
     failAbove: 1.3,
     unit: "longest/shortest axis",
     source: "common practice",
-    basis: "ferrous metal near the compass stretches the sphere of readings; a strong stretch changes with temperature and load and is better removed at its source",
+    basis:
+      "ferrous metal near the compass stretches the sphere of readings; a strong stretch changes with temperature and load and is better removed at its source",
   },
   "mag.dip": {
     warnAbove: 3,
@@ -91,7 +95,8 @@ export const THRESHOLDS = {
     failAbove: 15,
     unit: "% of field",
     source: "common practice",
-    basis: "a disturbance of p% of the field can turn the heading by up to asin(p/100 · field/horizontal field), i.e. about 7° for 5% at 65° of dip",
+    basis:
+      "a disturbance of p% of the field can turn the heading by up to asin(p/100 · field/horizontal field), i.e. about 7° for 5% at 65° of dip",
   },
   "mag.samples-clipped": {
     failAbove: 0,
@@ -193,7 +198,9 @@ export const THRESHOLDS = {
 
 export type ThresholdId = keyof typeof THRESHOLDS;
 export type ThresholdTable = Record<ThresholdId, Threshold>;
-export type ThresholdOverrides = Partial<Record<ThresholdId, Partial<Pick<Threshold, "warnAbove" | "failAbove" | "warnBelow" | "failBelow">>>>;
+export type ThresholdOverrides = Partial<
+  Record<ThresholdId, Partial<Pick<Threshold, "warnAbove" | "failAbove" | "warnBelow" | "failBelow">>>
+>;
 
 /**
  * The limits in force: the table with a workspace's overrides applied. An overridden limit

@@ -88,7 +88,8 @@ const CAUSES: CauseRule[] = [
   {
     id: "current",
     title: "Power wiring too close to the compass",
-    action: "Route power wiring away from the compass or move the compass (a mast helps); re-measure with props off and the vehicle restrained.",
+    action:
+      "Route power wiring away from the compass or move the compass (a mast helps); re-measure with props off and the vehicle restrained.",
     evidence: { "mag.current": 3, "mag.hard-iron": 0.5 },
   },
   {

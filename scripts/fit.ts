@@ -45,9 +45,13 @@ function parseDate(text: string): Date {
 
 function parseUnits(text: string): CaptureUnits {
   const units: CaptureUnits = {};
-  for (const item of text.split(",").map((s) => s.trim()).filter(Boolean)) {
+  for (const item of text
+    .split(",")
+    .map((s) => s.trim())
+    .filter(Boolean)) {
     const spec = parseUnit(item);
-    if (!spec) throw new UsageError(`--units: "${item}" is not a unit we know (e.g. uT, nT, mG, G, m/s2, g, deg/s, rad/s, ms, mag:counts:0.15)`);
+    if (!spec)
+      throw new UsageError(`--units: "${item}" is not a unit we know (e.g. uT, nT, mG, G, m/s2, g, deg/s, rad/s, ms, mag:counts:0.15)`);
     (units as Record<string, unknown>)[spec.kind] = spec;
   }
   return units;
@@ -102,7 +106,8 @@ async function main(argv: string[]): Promise<number> {
   try {
     if (!file || positionals.length > 1) throw new UsageError("give exactly one capture file");
     const model = (values.model ?? "auto") as MagModelChoice;
-    if (!["auto", "sphere", "axis", "full"].includes(model)) throw new UsageError(`--model "${values.model}" should be auto, sphere, axis or full`);
+    if (!["auto", "sphere", "axis", "full"].includes(model))
+      throw new UsageError(`--model "${values.model}" should be auto, sphere, axis or full`);
     const site = values.site ? parseSite(values.site) : null;
     const date = values.date ? parseDate(values.date) : null;
     const units = values.units ? parseUnits(values.units) : {};

@@ -143,7 +143,11 @@ class TableBuilder {
       );
     }
     if ((this.options.requireTime ?? true) && !("time" in recognition.fieldIndex)) {
-      throw new IngestError(this.row, "time", "missing required column: no time column recognised; name it time, timestamp, time_ms or time_us, or map one with --map column=time");
+      throw new IngestError(
+        this.row,
+        "time",
+        "missing required column: no time column recognised; name it time, timestamp, time_ms or time_us, or map one with --map column=time",
+      );
     }
     for (const [field, index] of Object.entries(recognition.fieldIndex)) {
       this.readers.push({ index, field, header: this.header[index], blocks: [] });
@@ -171,7 +175,11 @@ class TableBuilder {
       reader.blocks[reader.blocks.length - 1][at] = value;
       if (r === this.timeReader) {
         if (value < this.previousTime) {
-          throw new IngestError(this.row, reader.header, `time goes backwards (${value} after ${this.previousTime}); rows must be in time order`);
+          throw new IngestError(
+            this.row,
+            reader.header,
+            `time goes backwards (${value} after ${this.previousTime}); rows must be in time order`,
+          );
         }
         this.previousTime = value;
       }

@@ -77,7 +77,13 @@ describe("fitAccelerometer", () => {
 
   test("with extra in-between poses, the full model recovers a symmetric misalignment", () => {
     // Gain with a 1° symmetric xy coupling: off-diagonal sin(1°) ≈ 0.01745.
-    const holds: HoldSpec[] = [...sixFaces, { face: "+z", tiltDeg: 40 }, { face: "+x", tiltDeg: 40 }, { face: "+y", tiltDeg: 40 }, { face: "-z", tiltDeg: 35 }];
+    const holds: HoldSpec[] = [
+      ...sixFaces,
+      { face: "+z", tiltDeg: 40 },
+      { face: "+x", tiltDeg: 40 },
+      { face: "+y", tiltDeg: 40 },
+      { face: "-z", tiltDeg: 35 },
+    ];
     const recording = accelerometerRecording({ holds, noise: 0.005 });
     const coupling = Math.sin(Math.PI / 180);
     for (let i = 0; i < recording.time.length; i++) {
@@ -105,7 +111,13 @@ describe("fitAccelerometer", () => {
 });
 
 describe("levelTrim", () => {
-  const pose = (specificForce: Vec3, durationS = 4) => ({ face: "+z" as const, durationS, specificForce, magnitudeMps2: 9.8, angleFromAxisDeg: 0 });
+  const pose = (specificForce: Vec3, durationS = 4) => ({
+    face: "+z" as const,
+    durationS,
+    specificForce,
+    magnitudeMps2: 9.8,
+    angleFromAxisDeg: 0,
+  });
   const g = 9.8;
   const d = Math.PI / 180;
   test.each([

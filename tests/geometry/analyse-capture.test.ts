@@ -60,7 +60,17 @@ describe("analyseCapture", () => {
     { label: "yaw 180", rotation: rotationZ(180), name: "yaw 180" },
   ])("a second compass mounted $label against its declaration fails the mounting check", ({ rotation, name }) => {
     const { analysis } = analyse({
-      magnetometers: [{}, { mountingRotation: rotation, declaredRotation: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }],
+      magnetometers: [
+        {},
+        {
+          mountingRotation: rotation,
+          declaredRotation: [
+            [1, 0, 0],
+            [0, 1, 0],
+            [0, 0, 1],
+          ],
+        },
+      ],
     });
     const mounting = find(analysis.checks, "mag.mounting", "mag1");
     expect(mounting.status).toBe("fail");
@@ -75,7 +85,19 @@ describe("analyseCapture", () => {
     { label: "the opposite rotation fails", declared: "yaw 270", status: "fail" },
   ])("declaring the module's rotation to the analysis: $label", ({ declared, status }) => {
     const { analysis } = analyse(
-      { magnetometers: [{}, { mountingRotation: rotationZ(90), declaredRotation: [[1, 0, 0], [0, 1, 0], [0, 0, 1]] }] },
+      {
+        magnetometers: [
+          {},
+          {
+            mountingRotation: rotationZ(90),
+            declaredRotation: [
+              [1, 0, 0],
+              [0, 1, 0],
+              [0, 0, 1],
+            ],
+          },
+        ],
+      },
       { mountingRotations: { mag1: declared } },
     );
     expect(find(analysis.checks, "mag.mounting", "mag1").status).toBe(status);
@@ -145,7 +167,10 @@ describe("analyseCapture: accelerometer from a simulated recording", () => {
   test("six poses recovered, offsets and scales within tolerance", () => {
     const offset = [0.35, -0.25, 0.4];
     const scale = [1.02, 0.985, 1.01];
-    const { analysis } = analyse({ holds: { faces: SIX }, accelerometer: { offset: [...offset] as never, scale: [...scale] as never, noise: 0.02 } });
+    const { analysis } = analyse({
+      holds: { faces: SIX },
+      accelerometer: { offset: [...offset] as never, scale: [...scale] as never, noise: 0.02 },
+    });
     const accel = analysis.accelerometer!;
     expect(accel.poses.map((p) => p.face)).toEqual(SIX);
     // Simulated noise 0.02 m/s² over ~180 samples per hold; the gravity used is the site's

@@ -53,7 +53,11 @@ describe("resolveCaptureUnits", () => {
 
   test("stated units win over column names, which win over guesses", () => {
     const t = table(1, 1);
-    const hinted = resolveCaptureUnits(t, {}, { "mag0.x": { kind: "magnetic", unit: "mG" }, "accel0.x": { kind: "acceleration", unit: "m/s2" } });
+    const hinted = resolveCaptureUnits(
+      t,
+      {},
+      { "mag0.x": { kind: "magnetic", unit: "mG" }, "accel0.x": { kind: "acceleration", unit: "m/s2" } },
+    );
     expect(hinted.mag0).toMatchObject({ how: "column name", factor: 0.1, physical: true });
     expect(hinted.accel0.spec.unit).toBe("m/s2");
     const stated = resolveCaptureUnits(t, { magnetic: { kind: "magnetic", unit: "nT" } }, { "mag0.x": { kind: "magnetic", unit: "mG" } });
@@ -68,7 +72,7 @@ describe("convertCapture", () => {
     const out = convertCapture(t, units);
     expect(out.columns["mag0.x"][0]).toBeCloseTo(20, 12);
     expect(out.columns["accel0.z"][0]).toBeCloseTo(-9.80665, 12);
-    expect(out.columns["gyro0.x"][10]).toBeCloseTo(((200 * Math.sin(1)) * Math.PI) / 180, 12);
+    expect(out.columns["gyro0.x"][10]).toBeCloseTo((200 * Math.sin(1) * Math.PI) / 180, 12);
     expect(out.columns.time[0]).toBe(0);
     expect(out.columns.time[1]).toBeCloseTo(0.01, 12);
     expect(t.columns["accel0.z"][0]).toBe(-1); // input untouched

@@ -8,9 +8,21 @@ const d = Math.PI / 180;
 
 function rotation(rollDeg: number, pitchDeg: number, yawDeg: number): Mat3 {
   const [r, p, y] = [rollDeg * d, pitchDeg * d, yawDeg * d];
-  const rx: Mat3 = [[1, 0, 0], [0, Math.cos(r), -Math.sin(r)], [0, Math.sin(r), Math.cos(r)]];
-  const ry: Mat3 = [[Math.cos(p), 0, Math.sin(p)], [0, 1, 0], [-Math.sin(p), 0, Math.cos(p)]];
-  const rz: Mat3 = [[Math.cos(y), -Math.sin(y), 0], [Math.sin(y), Math.cos(y), 0], [0, 0, 1]];
+  const rx: Mat3 = [
+    [1, 0, 0],
+    [0, Math.cos(r), -Math.sin(r)],
+    [0, Math.sin(r), Math.cos(r)],
+  ];
+  const ry: Mat3 = [
+    [Math.cos(p), 0, Math.sin(p)],
+    [0, 1, 0],
+    [-Math.sin(p), 0, Math.cos(p)],
+  ];
+  const rz: Mat3 = [
+    [Math.cos(y), -Math.sin(y), 0],
+    [Math.sin(y), Math.cos(y), 0],
+    [0, 0, 1],
+  ];
   return mulMat(rz, mulMat(ry, rx)); // body → NED
 }
 
@@ -37,7 +49,13 @@ function holds(inclinationDeg: number, attitudes: [number, number, number][], fi
 }
 
 const attitudes: [number, number, number][] = [
-  [0, 0, 0], [180, 0, 30], [0, 90, 0], [0, -90, 120], [90, 0, 200], [-90, 0, 300], [20, 10, 45],
+  [0, 0, 0],
+  [180, 0, 30],
+  [0, 90, 0],
+  [0, -90, 120],
+  [90, 0, 200],
+  [-90, 0, 300],
+  [20, 10, 45],
 ];
 
 describe("measureDip", () => {
@@ -56,13 +74,21 @@ describe("measureDip", () => {
 
   test("applies the corrections before measuring", () => {
     const offset: Vec3 = [12, -7, 30];
-    const squash: Mat3 = [[1.2, 0, 0], [0, 0.9, 0], [0, 0, 1]];
+    const squash: Mat3 = [
+      [1.2, 0, 0],
+      [0, 0.9, 0],
+      [0, 0, 1],
+    ];
     const { accel, field, periods } = holds(60, attitudes, (b) => {
       const s = mulMatVec(squash, b);
       return [s[0] + offset[0], s[1] + offset[1], s[2] + offset[2]];
     });
     const raw = measureDip(accel, field, periods)!;
-    const inverse: Mat3 = [[1 / 1.2, 0, 0], [0, 1 / 0.9, 0], [0, 0, 1]];
+    const inverse: Mat3 = [
+      [1 / 1.2, 0, 0],
+      [0, 1 / 0.9, 0],
+      [0, 0, 1],
+    ];
     const corrected = measureDip(accel, field, periods, { field: { offset, matrix: inverse } })!;
     expect(Math.abs(raw.dipDeg - 60)).toBeGreaterThan(1);
     expect(corrected.dipDeg).toBeCloseTo(60, 9);

@@ -97,7 +97,14 @@ describe("compareAccelerometers with corrections", () => {
     for (let i = 0; i < other.x.length; i++) other.x[i] = 1.05 * other.x[i] + 0.4;
     const raw = compareAccelerometers(["a", "b"], recording.accel, other, periods)!;
     const corrected = compareAccelerometers(["a", "b"], recording.accel, other, periods, {
-      b: { offset: [0.4, 0, 0], matrix: [[1 / 1.05, 0, 0], [0, 1, 0], [0, 0, 1]] },
+      b: {
+        offset: [0.4, 0, 0],
+        matrix: [
+          [1 / 1.05, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ],
+      },
     })!;
     expect(raw.rmsDifference).toBeGreaterThan(0.3);
     expect(corrected.rmsDifference).toBeLessThan(1e-9);

@@ -34,7 +34,12 @@ describe("findStillPeriods", () => {
     { label: "short holds are dropped", holdS: 1.5, minDurationS: undefined, expected: 0 },
     { label: "a lower minimum keeps them", holdS: 0.9, minDurationS: 0.2, expected: 2 },
   ])("$label", ({ holdS, minDurationS, expected }) => {
-    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS }, { face: "-z", holdS }] });
+    const recording = accelerometerRecording({
+      holds: [
+        { face: "+z", holdS },
+        { face: "-z", holdS },
+      ],
+    });
     expect(findStillPeriods(recording.time, recording.accel, { minDurationS })).toHaveLength(expected);
   });
 
@@ -105,7 +110,13 @@ describe("stillMask", () => {
 
 describe("findStillPeriods with a gyroscope", () => {
   test("a slow turn about the vertical (invisible to gravity) is split by the integrated rate", () => {
-    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 10 }, { face: "-z", holdS: 10 }, { face: "+x", holdS: 10 }] });
+    const recording = accelerometerRecording({
+      holds: [
+        { face: "+z", holdS: 10 },
+        { face: "-z", holdS: 10 },
+        { face: "+x", holdS: 10 },
+      ],
+    });
     // 4 °/s about the vertical during the last hold only: under the rate threshold, 40° in all.
     const last = recording.holdWindows[2];
     for (let i = 0; i < recording.gyro.x.length; i++) {

@@ -8,8 +8,10 @@ describe("THRESHOLDS", () => {
     expect(threshold.source).toMatch(/common practice|from memory|WMM|NIMA|CGPM/);
     expect(threshold.unit.length).toBeGreaterThan(0);
     expect(threshold.basis.length).toBeGreaterThan(20);
-    if (threshold.warnAbove !== undefined && threshold.failAbove !== undefined) expect(threshold.warnAbove).toBeLessThanOrEqual(threshold.failAbove);
-    if (threshold.warnBelow !== undefined && threshold.failBelow !== undefined) expect(threshold.warnBelow).toBeGreaterThanOrEqual(threshold.failBelow);
+    if (threshold.warnAbove !== undefined && threshold.failAbove !== undefined)
+      expect(threshold.warnAbove).toBeLessThanOrEqual(threshold.failAbove);
+    if (threshold.warnBelow !== undefined && threshold.failBelow !== undefined)
+      expect(threshold.warnBelow).toBeGreaterThanOrEqual(threshold.failBelow);
     expect([threshold.warnAbove, threshold.failAbove, threshold.warnBelow, threshold.failBelow].some((v) => v !== undefined)).toBe(true);
   });
 });

@@ -35,7 +35,12 @@ describe("toCanonical", () => {
 describe("canonicalFactor", () => {
   test.each([
     { label: "counts without a scale are not physical", spec: { kind: "magnetic", unit: "counts" }, physical: false, factor: 1 },
-    { label: "counts with a scale are physical", spec: { kind: "rate", unit: "counts", countsScale: 0.001 }, physical: true, factor: 0.001 },
+    {
+      label: "counts with a scale are physical",
+      spec: { kind: "rate", unit: "counts", countsScale: 0.001 },
+      physical: true,
+      factor: 0.001,
+    },
     { label: "gauss is physical", spec: { kind: "magnetic", unit: "G" }, physical: true, factor: 100 },
   ] as const)("$label", ({ spec, physical, factor }) => {
     expect(canonicalFactor(spec)).toEqual({ physical, factor });

@@ -3,7 +3,18 @@ import type { Check, CheckStatus } from "@/geometry/types";
 import { diagnose, overallVerdict } from "@/geometry/verdict";
 
 function check(id: string, status: CheckStatus, extra: Partial<Check> = {}): Check {
-  return { id, title: id, status, measured: 1, threshold: null, unit: "%", explanation: "", remedy: null, source: "common practice", ...extra };
+  return {
+    id,
+    title: id,
+    status,
+    measured: 1,
+    threshold: null,
+    unit: "%",
+    explanation: "",
+    remedy: null,
+    source: "common practice",
+    ...extra,
+  };
 }
 
 describe("overallVerdict", () => {
@@ -30,9 +41,21 @@ describe("diagnose", () => {
     { label: "poor coverage", checks: [check("mag.coverage", "fail"), check("mag.gap", "fail")], top: "incomplete-rotation" },
     { label: "a planar refusal", checks: [check("mag.fit", "fail", { measured: "planar" })], top: "incomplete-rotation" },
     { label: "a non-ellipsoid refusal", checks: [check("mag.fit", "fail", { measured: "not-an-ellipsoid" })], top: "fit-refused" },
-    { label: "mounting against declaration", checks: [check("mag.mounting", "fail", { sensor: "mag1" }), check("mag.dip", "warn", { sensor: "mag1" })], top: "mounting" },
-    { label: "field far off the Earth's", checks: [check("mag.field-plausible", "fail"), check("mag.field-vs-model", "fail")], top: "units" },
-    { label: "field a little off and dip off", checks: [check("mag.field-plausible", "pass"), check("mag.field-vs-model", "fail"), check("mag.dip", "warn")], top: "site" },
+    {
+      label: "mounting against declaration",
+      checks: [check("mag.mounting", "fail", { sensor: "mag1" }), check("mag.dip", "warn", { sensor: "mag1" })],
+      top: "mounting",
+    },
+    {
+      label: "field far off the Earth's",
+      checks: [check("mag.field-plausible", "fail"), check("mag.field-vs-model", "fail")],
+      top: "units",
+    },
+    {
+      label: "field a little off and dip off",
+      checks: [check("mag.field-plausible", "pass"), check("mag.field-vs-model", "fail"), check("mag.dip", "warn")],
+      top: "site",
+    },
     { label: "current coupling", checks: [check("mag.current", "fail")], top: "current" },
     { label: "wobbly holds", checks: [check("accel.wobble", "fail"), check("accel.faces", "pass")], top: "accel-holds-unsteady" },
     { label: "missing faces", checks: [check("accel.faces", "fail"), check("accel.fit", "fail")], top: "accel-holds-missing" },

@@ -73,7 +73,9 @@ describe("npm run fit", () => {
     expect(document.accelerometer.missingFaces).toEqual([]);
     expect(document.checks.length).toBeGreaterThan(10);
     for (const check of document.checks) {
-      expect(Object.keys(check)).toEqual(expect.arrayContaining(["id", "status", "measured", "threshold", "unit", "explanation", "remedy", "source"]));
+      expect(Object.keys(check)).toEqual(
+        expect.arrayContaining(["id", "status", "measured", "threshold", "unit", "explanation", "remedy", "source"]),
+      );
     }
   }, 120_000);
 
@@ -89,19 +91,41 @@ describe("npm run fit", () => {
   }, 120_000);
 
   test.each([
-    { label: "text in a number column", edit: (lines: string[]) => { lines[7] = lines[7].replace(/^([^,]*),[^,]*/, "$1,oops"); }, message: /row 8, column "mag0.x"/ },
-    { label: "time going backwards", edit: (lines: string[]) => { lines[20] = lines[20].replace(/^[^,]*/, "0"); }, message: /row 21, column "time".*backwards/ },
-    { label: "a missing axis", edit: (lines: string[]) => { lines[0] = lines[0].replace("mag0.z", "temperature"); }, message: /row 1, column "mag0.z".*missing required column/ },
-  ])("a bad file ($label) exits with 2 and names row and column on stderr", ({ edit, message }) => {
-    const { table } = simulateCapture({ seed: 5, pathSeconds: 10, accelerometer: false, gyro: false });
-    const lines = tableToCsv(table).split("\n");
-    edit(lines);
-    const file = write("bad.csv", lines.join("\n"));
-    const { code, stdout, stderr } = fit(file);
-    expect(code).toBe(2);
-    expect(stdout).toBe("");
-    expect(stderr).toMatch(message);
-  }, 120_000);
+    {
+      label: "text in a number column",
+      edit: (lines: string[]) => {
+        lines[7] = lines[7].replace(/^([^,]*),[^,]*/, "$1,oops");
+      },
+      message: /row 8, column "mag0.x"/,
+    },
+    {
+      label: "time going backwards",
+      edit: (lines: string[]) => {
+        lines[20] = lines[20].replace(/^[^,]*/, "0");
+      },
+      message: /row 21, column "time".*backwards/,
+    },
+    {
+      label: "a missing axis",
+      edit: (lines: string[]) => {
+        lines[0] = lines[0].replace("mag0.z", "temperature");
+      },
+      message: /row 1, column "mag0.z".*missing required column/,
+    },
+  ])(
+    "a bad file ($label) exits with 2 and names row and column on stderr",
+    ({ edit, message }) => {
+      const { table } = simulateCapture({ seed: 5, pathSeconds: 10, accelerometer: false, gyro: false });
+      const lines = tableToCsv(table).split("\n");
+      edit(lines);
+      const file = write("bad.csv", lines.join("\n"));
+      const { code, stdout, stderr } = fit(file);
+      expect(code).toBe(2);
+      expect(stdout).toBe("");
+      expect(stderr).toMatch(message);
+    },
+    120_000,
+  );
 
   test.each([
     { label: "no file", args: [], message: /exactly one capture file/ },
@@ -110,9 +134,13 @@ describe("npm run fit", () => {
     { label: "an unknown unit", args: ["x.csv", "--units", "furlongs"], message: /--units/ },
     { label: "an unknown model", args: ["x.csv", "--model", "cubic"], message: /--model/ },
     { label: "a malformed map", args: ["x.csv", "--map", "a=b"], message: /--map/ },
-  ])("bad arguments ($label) exit with 2", ({ args, message }) => {
-    const { code, stderr } = fit(...args);
-    expect(code).toBe(2);
-    expect(stderr).toMatch(message);
-  }, 120_000);
+  ])(
+    "bad arguments ($label) exit with 2",
+    ({ args, message }) => {
+      const { code, stderr } = fit(...args);
+      expect(code).toBe(2);
+      expect(stderr).toMatch(message);
+    },
+    120_000,
+  );
 });

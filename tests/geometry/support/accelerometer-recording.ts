@@ -30,11 +30,17 @@ export interface RecordingSpec {
 }
 
 const AXES: Record<BodyFace, Vec3> = {
-  "+x": [1, 0, 0], "-x": [-1, 0, 0], "+y": [0, 1, 0], "-y": [0, -1, 0], "+z": [0, 0, 1], "-z": [0, 0, -1],
+  "+x": [1, 0, 0],
+  "-x": [-1, 0, 0],
+  "+y": [0, 1, 0],
+  "-y": [0, -1, 0],
+  "+z": [0, 0, 1],
+  "-z": [0, 0, -1],
 };
 
 function rotateToward(v: Vec3, angleRad: number, perpendicular: Vec3): Vec3 {
-  const c = Math.cos(angleRad), s = Math.sin(angleRad);
+  const c = Math.cos(angleRad),
+    s = Math.sin(angleRad);
   return [v[0] * c + perpendicular[0] * s, v[1] * c + perpendicular[1] * s, v[2] * c + perpendicular[2] * s];
 }
 
@@ -54,7 +60,6 @@ export function accelerometerRecording(spec: RecordingSpec) {
   const downs: Vec3[] = [];
   const rates: Vec3[] = [];
   const holdWindows: { face: BodyFace; startS: number; endS: number }[] = [];
-  let t = 0;
   let previousDown: Vec3 | null = null;
   for (const hold of spec.holds) {
     const axis = AXES[hold.face];
@@ -79,7 +84,6 @@ export function accelerometerRecording(spec: RecordingSpec) {
     }
     holdWindows.push({ face: hold.face, startS, endS: downs.length / rate });
     previousDown = target;
-    t += holdSteps;
   }
   const n = downs.length;
   const time = new Float64Array(n);

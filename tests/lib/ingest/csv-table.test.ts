@@ -99,18 +99,68 @@ describe("parseCsvTable", () => {
 
   // Each bad file names its row (line of the file, header = 1) and column.
   test.each([
-    { label: "text in a number column", edit: (csv: string) => withCell(csv, 4, 1, "twelve"), row: 4, column: "mag_x (uT)", message: /text where a number is needed/ },
+    {
+      label: "text in a number column",
+      edit: (csv: string) => withCell(csv, 4, 1, "twelve"),
+      row: 4,
+      column: "mag_x (uT)",
+      message: /text where a number is needed/,
+    },
     { label: "empty cell", edit: (csv: string) => withCell(csv, 6, 5, ""), row: 6, column: "ay", message: /empty cell/ },
     { label: "NaN", edit: (csv: string) => withCell(csv, 3, 3, "NaN"), row: 3, column: "mag_z (uT)", message: /not a finite number/ },
     { label: "Infinity", edit: (csv: string) => withCell(csv, 9, 6, "-Infinity"), row: 9, column: "az", message: /not a finite number/ },
     { label: "decimal comma", edit: (csv: string) => withCell(csv, 2, 4, '"0,5"'), row: 2, column: "ax", message: /decimal comma/ },
-    { label: "time going backwards", edit: (csv: string) => withCell(csv, 7, 0, "5"), row: 7, column: "time_ms", message: /time goes backwards/ },
-    { label: "short row", edit: (csv: string) => csv.split("\n").map((l, i) => (i === 4 ? l.split(",").slice(0, 5).join(",") : l)).join("\n"), row: 5, column: null, message: /5 values where the header has 8 columns/ },
-    { label: "missing axis", edit: (csv: string) => csv.replace("az", "temperature"), row: 1, column: "accel0.z", message: /missing required column/ },
+    {
+      label: "time going backwards",
+      edit: (csv: string) => withCell(csv, 7, 0, "5"),
+      row: 7,
+      column: "time_ms",
+      message: /time goes backwards/,
+    },
+    {
+      label: "short row",
+      edit: (csv: string) =>
+        csv
+          .split("\n")
+          .map((l, i) => (i === 4 ? l.split(",").slice(0, 5).join(",") : l))
+          .join("\n"),
+      row: 5,
+      column: null,
+      message: /5 values where the header has 8 columns/,
+    },
+    {
+      label: "missing axis",
+      edit: (csv: string) => csv.replace("az", "temperature"),
+      row: 1,
+      column: "accel0.z",
+      message: /missing required column/,
+    },
     { label: "no time column", edit: (csv: string) => csv.replace("time_ms", "index"), row: 1, column: "time", message: /no time column/ },
-    { label: "no sensor column", edit: () => "time,temp\n" + "1,2\n".repeat(20), row: 1, column: null, message: /no magnetometer, accelerometer or gyroscope/ },
-    { label: "wrong delimiter", edit: (csv: string) => csv.replace(/,/g, " "), row: 1, column: null, message: /cannot tell how columns are separated/ },
-    { label: "a row with another delimiter", edit: (csv: string) => csv.split("\n").map((l, i) => (i === 8 ? l.replace(/,/g, ";") : l)).join("\n"), row: 9, column: null, message: /something other than a comma/ },
+    {
+      label: "no sensor column",
+      edit: () => "time,temp\n" + "1,2\n".repeat(20),
+      row: 1,
+      column: null,
+      message: /no magnetometer, accelerometer or gyroscope/,
+    },
+    {
+      label: "wrong delimiter",
+      edit: (csv: string) => csv.replace(/,/g, " "),
+      row: 1,
+      column: null,
+      message: /cannot tell how columns are separated/,
+    },
+    {
+      label: "a row with another delimiter",
+      edit: (csv: string) =>
+        csv
+          .split("\n")
+          .map((l, i) => (i === 8 ? l.replace(/,/g, ";") : l))
+          .join("\n"),
+      row: 9,
+      column: null,
+      message: /something other than a comma/,
+    },
     { label: "too few samples", edit: () => goodCsv(4), row: null, column: null, message: /too few samples: 4 data rows/ },
     { label: "empty file", edit: () => "", row: null, column: null, message: /empty/ },
   ])("$label", ({ edit, row, column, message }) => {
@@ -123,7 +173,10 @@ describe("parseCsvTable", () => {
   });
 
   test("trailing empty cells from a trailing delimiter are accepted", () => {
-    const csv = goodCsv().split("\n").map((line, i) => (i > 0 && line ? line + "," : line)).join("\n");
+    const csv = goodCsv()
+      .split("\n")
+      .map((line, i) => (i > 0 && line ? line + "," : line))
+      .join("\n");
     expect(parseCsvTable(csv).table.length).toBe(12);
   });
 });

@@ -9,6 +9,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { stopQueue } from "@/lib/jobs/queue";
 import { idle, type ActionState } from "@/lib/action-state";
 import { closeDb, db } from "@/lib/db";
 import { inviteMember } from "@/lib/data/invitations";
@@ -37,7 +38,10 @@ beforeAll(async () => {
   await makeWorkspace(users.outsider, "other");
 });
 
-afterAll(() => closeDb());
+afterAll(async () => {
+  await stopQueue();
+  await closeDb();
+});
 
 function actAsActor(actor: Actor) {
   actAs(actor === "anonymous" ? null : users[actor].id);
@@ -53,32 +57,179 @@ async function action(name: string) {
   return Object.values(mod)[0];
 }
 
+/** Expected status per actor: ok statuses for permitted roles, 401/403/404 for the rest. */
+type Expect = Record<Actor, number>;
+const expectFor = (ok: number, allowed: Role[], overrides: Partial<Expect> = {}): Expect => ({
+  owner: allowed.includes("owner") ? ok : 403,
+  technician: allowed.includes("technician") ? ok : 403,
+  builder: allowed.includes("builder") ? ok : 403,
+  instructor: allowed.includes("instructor") ? ok : 403,
+  student: allowed.includes("student") ? ok : 403,
+  outsider: 404,
+  anonymous: 401,
+  ...overrides,
+});
+
 interface WorkspaceRouteCase {
   file: string;
-  method: "GET" | "POST";
-  allowed: Role[];
+  method: "GET" | "POST" | "PATCH" | "DELETE";
+  expect: Expect;
+  /** Path parameters besides the slug (resources made fresh for each call when needed). */
+  params?: () => Promise<Record<string, string>>;
   body?: () => Record<string, unknown>;
-  okStatus: number;
-  dataKey: string;
+  /** A key the permitted answer must carry. */
+  dataKey?: string;
 }
 
+const EDITORS: Role[] = ["owner", "technician", "builder"];
+const VIEWERS: Role[] = ["owner", "technician", "builder", "instructor"];
+// Resources made by the owner: a builder may see them but not edit them ("own only").
+const fixtures = {} as { vehicleId: string; sensorId: string; siteId: string; runId: string; processedRunId: string };
+const runParams = async () => ({ runId: fixtures.processedRunId });
+
 const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
-  { file: "app/api/workspaces/[slug]/route.ts", method: "GET", allowed: ALL_ROLES, okStatus: 200, dataKey: "workspace" },
-  { file: "app/api/workspaces/[slug]/members/route.ts", method: "GET", allowed: ["owner", "technician", "builder", "instructor"], okStatus: 200, dataKey: "members" },
-  { file: "app/api/workspaces/[slug]/invitations/route.ts", method: "GET", allowed: ["owner"], okStatus: 200, dataKey: "invitations" },
+  { file: "app/api/workspaces/[slug]/route.ts", method: "GET", expect: expectFor(200, ALL_ROLES), dataKey: "workspace" },
+  { file: "app/api/workspaces/[slug]/members/route.ts", method: "GET", expect: expectFor(200, VIEWERS), dataKey: "members" },
+  { file: "app/api/workspaces/[slug]/invitations/route.ts", method: "GET", expect: expectFor(200, ["owner"]), dataKey: "invitations" },
   {
     file: "app/api/workspaces/[slug]/invitations/route.ts",
     method: "POST",
-    allowed: ["owner"],
+    expect: expectFor(201, ["owner"]),
     body: () => ({ email: `invitee-${uniqueTag()}@tests.example`, role: "builder" }),
-    okStatus: 201,
     dataKey: "invitation",
   },
-  { file: "app/api/workspaces/[slug]/audit/route.ts", method: "GET", allowed: ["owner", "technician"], okStatus: 200, dataKey: "events" },
+  { file: "app/api/workspaces/[slug]/audit/route.ts", method: "GET", expect: expectFor(200, ["owner", "technician"]), dataKey: "events" },
+  { file: "app/api/workspaces/[slug]/sites/route.ts", method: "GET", expect: expectFor(200, ALL_ROLES), dataKey: "sites" },
+  {
+    file: "app/api/workspaces/[slug]/sites/route.ts",
+    method: "POST",
+    expect: expectFor(201, EDITORS),
+    body: () => ({ name: `Site ${uniqueTag()}`, latitudeDeg: 10, longitudeDeg: 20, altitudeM: 5 }),
+    dataKey: "site",
+  },
+  {
+    file: "app/api/workspaces/[slug]/sites/[siteId]/route.ts",
+    method: "PATCH",
+    expect: expectFor(200, EDITORS),
+    params: async () => ({ siteId: fixtures.siteId }),
+    body: () => ({ name: `Renamed site ${uniqueTag()}`, latitudeDeg: 11, longitudeDeg: 21, altitudeM: 6 }),
+    dataKey: "site",
+  },
+  { file: "app/api/workspaces/[slug]/vehicles/route.ts", method: "GET", expect: expectFor(200, VIEWERS), dataKey: "items" },
+  {
+    file: "app/api/workspaces/[slug]/vehicles/route.ts",
+    method: "POST",
+    expect: expectFor(201, EDITORS),
+    body: () => ({ name: `Vehicle ${uniqueTag()}`, kind: "rover" }),
+    dataKey: "vehicle",
+  },
+  {
+    file: "app/api/workspaces/[slug]/vehicles/[vehicleId]/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS),
+    params: async () => ({ vehicleId: fixtures.vehicleId }),
+    dataKey: "sensors",
+  },
+  {
+    file: "app/api/workspaces/[slug]/vehicles/[vehicleId]/route.ts",
+    method: "PATCH",
+    expect: expectFor(200, ["owner", "technician"]),
+    params: async () => ({ vehicleId: fixtures.vehicleId }),
+    body: () => ({ name: `Kittiwake ${uniqueTag()}`, kind: "multirotor" }),
+    dataKey: "vehicle",
+  },
+  {
+    file: "app/api/workspaces/[slug]/vehicles/[vehicleId]/sensors/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS),
+    params: async () => ({ vehicleId: fixtures.vehicleId }),
+    dataKey: "sensors",
+  },
+  {
+    file: "app/api/workspaces/[slug]/vehicles/[vehicleId]/sensors/route.ts",
+    method: "POST",
+    expect: expectFor(201, ["owner", "technician"]),
+    params: async () => ({ vehicleId: fixtures.vehicleId }),
+    body: () => ({ kind: "accelerometer", label: `imu ${uniqueTag()}`, placement: "internal", mountingRotation: "none", units: "m/s2" }),
+    dataKey: "sensor",
+  },
+  {
+    file: "app/api/workspaces/[slug]/sensors/[sensorId]/route.ts",
+    method: "PATCH",
+    expect: expectFor(200, ["owner", "technician"]),
+    params: async () => ({ sensorId: fixtures.sensorId }),
+    body: () => ({ kind: "magnetometer", label: "mast", placement: "external", mountingRotation: "yaw 90", units: "uT" }),
+    dataKey: "sensor",
+  },
+  // Students list runs too, but only those shared with students (none here): 200 with no items.
+  { file: "app/api/workspaces/[slug]/runs/route.ts", method: "GET", expect: expectFor(200, ALL_ROLES), dataKey: "items" },
+  {
+    file: "app/api/workspaces/[slug]/runs/route.ts",
+    method: "POST",
+    expect: expectFor(201, EDITORS),
+    body: () => ({ vehicleId: fixtures.vehicleId, capturedOn: "2026-05-01", fileName: "p.csv", fileSize: 100 }),
+    dataKey: "upload",
+  },
+  // A run not shared with students does not exist for them: 404, like for an outsider. Changing
+// a run needs a role that may change runs at all, checked first: 403 without looking the run up.
+  { file: "app/api/workspaces/[slug]/runs/[runId]/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "run" },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/route.ts",
+    method: "DELETE",
+    expect: expectFor(200, ["owner", "technician"]),
+    params: async () => ({ runId: await freshRun() }),
+    dataKey: "deleted",
+  },
+  // Permitted callers reach the storage check, which answers 409: the file never arrived.
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/uploaded/route.ts",
+    method: "POST",
+    expect: expectFor(409, ["owner", "technician"]),
+    params: async () => ({ runId: await freshRun() }),
+  },
+  { file: "app/api/workspaces/[slug]/runs/[runId]/status/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "status" },
+  { file: "app/api/workspaces/[slug]/runs/[runId]/results/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "results" },
+  { file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "versions" },
+  { file: "app/api/workspaces/[slug]/runs/[runId]/samples/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "url" },
+  { file: "app/api/workspaces/[slug]/runs/[runId]/file/route.ts", method: "GET", expect: expectFor(302, VIEWERS, { student: 404 }), params: runParams },
+  // Last: re-processing makes the run's current version a queued one.
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts",
+    method: "POST",
+    expect: expectFor(202, ["owner", "technician"]),
+    params: runParams,
+    body: () => ({ model: "axis" }),
+    dataKey: "version",
+  },
 ];
+
+/** A run registered by the owner (no file uploaded). */
+async function freshRun(): Promise<string> {
+  const { createRun } = await import("@/lib/data/runs");
+  const { run } = await createRun(workspace.id, users.owner.id, { vehicleId: fixtures.vehicleId, capturedOn: "2026-05-02", title: "", fileName: "f.csv", fileSize: 10, columnMapping: {}, units: {}, sensorSlots: {}, model: "auto", powersMotors: false });
+  return run.id;
+}
+
+beforeAll(async () => {
+  const { createVehicle } = await import("@/lib/data/vehicles");
+  const { createSensor } = await import("@/lib/data/sensors");
+  const { createSite } = await import("@/lib/data/sites");
+  const { processRunVersion } = await import("@/lib/jobs/process-run-version");
+  const vehicle = await createVehicle(workspace.id, users.owner.id, { name: "Fulmar", kind: "multirotor", airframe: "", serialTag: "", customer: "", notes: "" });
+  fixtures.vehicleId = vehicle.id;
+  fixtures.sensorId = (await createSensor(workspace.id, users.owner.id, vehicle.id, { kind: "magnetometer", label: "board", placement: "internal", mountingRotation: "none", units: "uT", columnHints: [] })).id;
+  fixtures.siteId = (await createSite(workspace.id, users.owner.id, { name: "Permissions field", latitudeDeg: 47, longitudeDeg: 8, altitudeM: 400, notes: "" })).id;
+  actAs(users.owner.id);
+  const { uploadRun, simulatedCsv } = await import("../support/runs");
+  const uploaded = await uploadRun(workspace, { vehicleId: vehicle.id, csv: simulatedCsv({ seed: 5, pathSeconds: 30 }) });
+  fixtures.processedRunId = uploaded.runId;
+  const run = await db().models.Run.findByPk(uploaded.runId);
+  await processRunVersion(run!.currentVersionId!);
+});
 
 describe.each(WORKSPACE_ROUTES)("$method $file", (c) => {
   test.each(ACTORS)("as %s", async (actor) => {
+    const extra = c.params ? await c.params() : {};
     actAsActor(actor);
     const handler = await route(c.file, c.method);
     const request = new Request(`http://test.local/api/workspaces/${workspace.slug}`, {
@@ -86,13 +237,14 @@ describe.each(WORKSPACE_ROUTES)("$method $file", (c) => {
       headers: { "content-type": "application/json" },
       body: c.body ? JSON.stringify(c.body()) : undefined,
     });
-    const response = await handler(request, { params: Promise.resolve({ slug: workspace.slug }) });
-    const json = await response.json();
-    const expected =
-      actor === "anonymous" ? 401 : actor === "outsider" ? 404 : c.allowed.includes(actor) ? c.okStatus : 403;
+    const response = await handler(request, { params: Promise.resolve({ slug: workspace.slug, ...extra }) });
+    const expected = c.expect[actor];
     expect(response.status).toBe(expected);
-    if (expected === c.okStatus) {
-      expect(json[c.dataKey]).toBeDefined();
+    if (expected === 302) return;
+    const json = await response.json();
+    if (expected < 300) {
+      if (c.dataKey) expect(json[c.dataKey]).toBeDefined();
+      if (actor === "student" && Array.isArray(json.items)) expect(json.items).toEqual([]);
     } else {
       expect(Object.keys(json).sort()).toEqual(["error", "message"]);
       expect(JSON.stringify(json)).not.toContain(workspace.name);
@@ -247,6 +399,9 @@ describe("completeness", () => {
   test("every route handler is walked above", async () => {
     const covered = new Set([
       ...WORKSPACE_ROUTES.map((c) => `${c.method} ${c.file}`),
+      "GET app/api/tokens/route.ts",
+      "POST app/api/tokens/route.ts",
+      "DELETE app/api/tokens/[tokenId]/route.ts",
       "GET app/api/me/route.ts",
       "GET app/api/workspaces/route.ts",
       "POST app/api/workspaces/route.ts",
@@ -274,5 +429,37 @@ describe("completeness", () => {
     ]);
     const found = fs.readdirSync("lib/actions").map((f) => f.replace(/\.ts$/, ""));
     expect(found.filter((name) => !covered.has(name))).toEqual([]);
+  });
+});
+
+describe("personal API tokens", () => {
+  test("a token acts as its owner; revoked or unknown tokens are refused, never rescued by a session", async () => {
+    const { createApiToken } = await import("@/lib/data/api-tokens");
+    const { token, summary } = await createApiToken(users.technician.id, "bench rig");
+    expect(token).toMatch(/^lox_/);
+    const stored = await db().models.ApiToken.findByPk(summary.id);
+    expect(stored!.tokenHash).not.toContain(token.slice(4));
+    const me = await route("app/api/me/route.ts", "GET");
+    const asToken = (t: string) => new Request("http://test.local/api/me", { headers: { authorization: `Bearer ${t}` } });
+    actAs(null);
+    const ok = await me(asToken(token), { params: Promise.resolve({}) });
+    expect(ok.status).toBe(200);
+    expect((await ok.json()).user.email).toBe(users.technician.email);
+    // The token's user keeps their role: a technician's token cannot invite.
+    const invite = await route("app/api/workspaces/[slug]/invitations/route.ts", "POST");
+    const denied = await invite(
+      new Request("http://test.local/x", { method: "POST", headers: { authorization: `Bearer ${token}`, "content-type": "application/json" }, body: JSON.stringify({ email: "x@tests.example", role: "owner" }) }),
+      { params: Promise.resolve({ slug: workspace.slug }) },
+    );
+    expect(denied.status).toBe(403);
+    // Revoke through the route, then the token no longer works even with a signed-in session present.
+    actAs(users.technician.id);
+    const revoke = await route("app/api/tokens/[tokenId]/route.ts", "DELETE");
+    expect((await revoke(new Request("http://test.local/x", { method: "DELETE" }), { params: Promise.resolve({ tokenId: summary.id }) })).status).toBe(200);
+    expect((await me(asToken(token), { params: Promise.resolve({}) })).status).toBe(401);
+    expect((await me(asToken("lox_not-a-real-token"), { params: Promise.resolve({}) })).status).toBe(401);
+    // Someone else's token id cannot be revoked.
+    const other = await createApiToken(users.owner.id, "owner's");
+    expect((await revoke(new Request("http://test.local/x", { method: "DELETE" }), { params: Promise.resolve({ tokenId: other.summary.id }) })).status).toBe(404);
   });
 });

@@ -52,8 +52,8 @@ interface CauseRule {
   id: string;
   title: string;
   action: string;
-  /** Check id → weight. */
-  evidence: Record<string, number>;
+  /** Check id → weight, or a weight that depends on what the check measured. */
+  evidence: Record<string, number | ((check: Check) => number)>;
   /** Extra condition on a check before it counts (e.g. only a particular refusal). */
   accepts?: (check: Check) => boolean;
 }
@@ -77,13 +77,19 @@ const CAUSES: CauseRule[] = [
     id: "mounting",
     title: "Compass mounted at another rotation than declared",
     action: "Compare each compass's declared rotation with how it is mounted, correct it, and recalibrate.",
-    evidence: { "mag.mounting": 3, "mag.dip": 0.5 },
+    // A dip tens of degrees off is a frame turned over, not a disturbance.
+    evidence: { "mag.mounting": 3, "mag.dip": (check) => (numeric(check) > 20 ? 2 : 0.5) },
   },
   {
     id: "site",
     title: "Magnetic disturbance at the capture spot",
     action: "Move several metres from steel, parked vehicles and reinforced concrete and repeat the capture.",
-    evidence: { "mag.field-vs-model": 2, "mag.dip": 1, "mag.residual": 1, "mag.field-plausible": 0.5 },
+    evidence: {
+      "mag.field-vs-model": 2,
+      "mag.dip": (check) => (numeric(check) > 20 ? 0.25 : 1),
+      "mag.residual": 1,
+      "mag.field-plausible": 0.5,
+    },
   },
   {
     id: "current",
@@ -155,6 +161,15 @@ const CAUSES: CauseRule[] = [
   },
 ];
 
+function numeric(check: Check): number {
+  return typeof check.measured === "number" ? check.measured : Number.NaN;
+}
+
+function weightOf(rule: CauseRule, check: Check): number {
+  const weight = rule.evidence[check.id];
+  return typeof weight === "function" ? weight(check) : weight;
+}
+
 function evidenceLabel(check: Check): string {
   return check.sensor ? `${check.id}@${check.sensor}` : check.id;
 }
@@ -172,7 +187,7 @@ export function diagnose(checks: Check[]): LikelyCause[] {
   for (const rule of CAUSES) {
     const hits = flagged.filter((check) => rule.evidence[check.id] !== undefined && (rule.accepts?.(check) ?? true));
     if (hits.length === 0) continue;
-    const score = hits.reduce((total, check) => total + rule.evidence[check.id] * (check.status === "fail" ? 3 : 1), 0);
+    const score = hits.reduce((total, check) => total + weightOf(rule, check) * (check.status === "fail" ? 3 : 1), 0);
     causes.push({
       id: rule.id,
       title: rule.title,

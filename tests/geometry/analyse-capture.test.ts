@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { analyseCapture, type AnalyseCaptureOptions } from "@/geometry/analyse-capture";
 import { magneticReference } from "@/geometry/magnetic-reference";
 import type { BodyFace, CaptureSpec } from "@/geometry/magnetometer-types";
-import { rotationZ } from "@/geometry/rotation";
+import { rotationX, rotationZ } from "@/geometry/rotation";
 import { simulateCapture } from "@/geometry/simulator";
 import type { Check } from "@/geometry/types";
 
@@ -123,6 +123,59 @@ describe("analyseCapture", () => {
     expect(check.remedy).toMatch(/aviation rules/);
     const expectedPercent = (100 * Math.hypot(...coupling) * 40) / reference.fieldStrengthMicrotesla;
     expect(Number(check.measured)).toBeCloseTo(expectedPercent, 0);
+  });
+
+  test("a single compass turned over against its declaration fails the dip check", () => {
+    const { analysis } = analyse({
+      holds: { faces: SIX },
+      magnetometers: [
+        {
+          mountingRotation: rotationX(180),
+          declaredRotation: [
+            [1, 0, 0],
+            [0, 1, 0],
+            [0, 0, 1],
+          ],
+        },
+      ],
+    });
+    const dip = find(analysis.checks, "mag.dip", "mag0");
+    expect(dip.status).toBe("fail");
+    // Turned over, the vertical part of the field seems to point the wrong way: tens of degrees off.
+    expect(Number(dip.measured)).toBeGreaterThan(20);
+    expect(analysis.diagnosis[0].id).toBe("mounting");
+  });
+
+  test("turning only the upper half of the sphere leaves a gap that fails", () => {
+    const { analysis } = analyse({ path: "upper-half" });
+    expect(find(analysis.checks, "mag.gap", "mag0").status).toBe("fail");
+    expect(analysis.diagnosis[0].id).toBe("incomplete-rotation");
+  });
+
+  test("steel a metre away disturbs the field while the vehicle moves: the residual fails, the site is blamed", () => {
+    const { analysis } = analyse({ steel: { distanceM: 1 } });
+    expect(find(analysis.checks, "mag.residual", "mag0").status).toBe("fail");
+    expect(analysis.diagnosis[0].id).toBe("site");
+  });
+
+  test.each([
+    { label: "strong soft iron", spec: { magnetometers: [{ softIron: "strong" as const }] }, id: "mag.soft-iron", cause: "ferrous-metal" },
+    {
+      label: "a large hard-iron offset",
+      spec: { magnetometers: [{ hardIronOffset: [60, -40, 30] as [number, number, number] }] },
+      id: "mag.hard-iron",
+      cause: "magnetised-part",
+    },
+    {
+      label: "a clipped sensor",
+      spec: { magnetometers: [{ hardIronOffset: [30, 0, 0] as [number, number, number], clipLevel: 60 }] },
+      id: "mag.samples-clipped",
+      cause: "saturation",
+    },
+  ])("$label fails its check and leads the diagnosis", ({ spec, id, cause }) => {
+    const { analysis } = analyse(spec);
+    expect(find(analysis.checks, id, "mag0").status).toBe("fail");
+    expect(analysis.diagnosis[0].id).toBe(cause);
   });
 
   test("a field stated in the wrong unit fails as implausible and the diagnosis blames units", () => {

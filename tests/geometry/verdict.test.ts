@@ -57,6 +57,8 @@ describe("diagnose", () => {
       top: "site",
     },
     { label: "current coupling", checks: [check("mag.current", "fail")], top: "current" },
+    { label: "dip a few degrees off", checks: [check("mag.dip", "fail", { measured: 7 })], top: "site" },
+    { label: "dip tens of degrees off (a frame turned over)", checks: [check("mag.dip", "fail", { measured: 85 })], top: "mounting" },
     { label: "wobbly holds", checks: [check("accel.wobble", "fail"), check("accel.faces", "pass")], top: "accel-holds-unsteady" },
     { label: "missing faces", checks: [check("accel.faces", "fail"), check("accel.fit", "fail")], top: "accel-holds-missing" },
   ])("$label → $top first", ({ checks, top }) => {

@@ -1,0 +1,196 @@
+import { describe, expect, test } from "vitest";
+import {
+  currentCouplingCheck,
+  dipCheck,
+  fieldPlausibleCheck,
+  fieldVsModelCheck,
+  fitCheck,
+  mountingCheck,
+  softIronRatio,
+} from "@/geometry/checks-magnetometer";
+import type { DipMeasurement } from "@/geometry/dip-check";
+import { magneticReference } from "@/geometry/magnetic-reference";
+import type {
+  CurrentCouplingResult,
+  MagnetometerCalibration,
+  MountingRotation,
+  RelativeRotationResult,
+} from "@/geometry/magnetometer-types";
+import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { resolveThresholds } from "@/geometry/thresholds";
+import type { Mat3 } from "@/geometry/types";
+
+const thresholds = resolveThresholds();
+const site = { latitudeDeg: 60.2, longitudeDeg: 24.9, altitudeM: 30 };
+const reference = magneticReference(site, new Date("2026-09-01T00:00:00Z"));
+const identity: Mat3 = [
+  [1, 0, 0],
+  [0, 1, 0],
+  [0, 0, 1],
+];
+
+/** Only the members the checks read; the rest of a calibration does not matter here. */
+function calibration(fieldStrength: number): MagnetometerCalibration {
+  return { ok: true, fieldStrength, hardIronOffset: [1, 2, 2], softIronMatrix: identity } as unknown as MagnetometerCalibration;
+}
+
+describe("softIronRatio", () => {
+  test.each([
+    { label: "a sphere", m: identity, ratio: 1 },
+    {
+      label: "axis-aligned 1.2 : 0.8",
+      m: [
+        [1.2, 0, 0],
+        [0, 1, 0],
+        [0, 0, 0.8],
+      ] as Mat3,
+      ratio: 1.5,
+    },
+    // A rotated ellipsoid: eigenvalues of [[1.1, 0.1], [0.1, 1.1]] are 1.2 and 1.0.
+    {
+      label: "rotated off the axes",
+      m: [
+        [1.1, 0.1, 0],
+        [0.1, 1.1, 0],
+        [0, 0, 1],
+      ] as Mat3,
+      ratio: 1.2,
+    },
+  ])("$label", ({ m, ratio }) => {
+    expect(softIronRatio(m)).toBeCloseTo(ratio, 10);
+  });
+});
+
+describe("fieldVsModelCheck", () => {
+  test("compares with the WMM field at the site", () => {
+    const check = fieldVsModelCheck("mag0", calibration(reference.fieldStrengthMicrotesla * 1.15), true, reference, thresholds);
+    expect(check.status).toBe("warn");
+    expect(check.measured).toBeCloseTo(15, 1);
+    expect(check.explanation).toContain("WMM-2025");
+  });
+
+  test.each([
+    { label: "units unknown", physical: false, ref: reference, reason: /units are not known/ },
+    { label: "no site", physical: true, ref: null, reason: /No site/ },
+  ])("skipped when $label", ({ physical, ref, reason }) => {
+    const check = fieldVsModelCheck("mag0", calibration(50), physical, ref, thresholds);
+    expect(check.status).toBe("skipped");
+    expect(check.explanation).toMatch(reason);
+  });
+
+  test("a date outside the model says so", () => {
+    const old = magneticReference(site, new Date("2032-01-01T00:00:00Z"));
+    expect(fieldVsModelCheck("mag0", calibration(old.fieldStrengthMicrotesla), true, old, thresholds).explanation).toMatch(
+      /outside the model's validity/,
+    );
+  });
+});
+
+describe("fieldPlausibleCheck", () => {
+  test.each([
+    { label: "an Earth-like field", strength: 48, status: "pass" },
+    { label: "the South Atlantic low", strength: 23, status: "pass" },
+    { label: "a field stated in mG read as µT", strength: 480, status: "fail" },
+  ])("$label", ({ strength, status }) => {
+    expect(fieldPlausibleCheck("mag0", calibration(strength), true, thresholds).status).toBe(status);
+  });
+});
+
+describe("fitCheck", () => {
+  test("a refusal fails with its reason and advice", () => {
+    const check = fitCheck("mag1", { ok: false, reason: "planar", detail: "the samples lie near a plane" });
+    expect(check).toMatchObject({ status: "fail", measured: "planar", sensor: "mag1" });
+    expect(check.explanation).toContain("the samples lie near a plane");
+    expect(check.remedy).toMatch(/upside down/);
+  });
+});
+
+describe("dipCheck", () => {
+  const dip = (dipDeg: number): DipMeasurement => ({ dipDeg, dipSpreadDeg: 0.3, periods: [], samplesUsed: 100 });
+  test.each([
+    { label: "on the model", offset: 1, status: "pass" },
+    { label: "4° off", offset: 4, status: "warn" },
+    { label: "10° off", offset: 10, status: "fail" },
+  ])("$label", ({ offset, status }) => {
+    expect(dipCheck("mag0", dip(reference.inclinationDeg + offset), reference, thresholds).status).toBe(status);
+  });
+
+  test("skipped without a site or without a measurement", () => {
+    expect(dipCheck("mag0", dip(70), null, thresholds).status).toBe("skipped");
+    expect(dipCheck("mag0", null, reference, thresholds, "no accelerometer").explanation).toBe("no accelerometer");
+  });
+});
+
+describe("mountingCheck", () => {
+  const yaw90 = mountingRotationByName("yaw 90")!;
+  const none = mountingRotationByName("none")!;
+  function result(rotation: Mat3, nearest: MountingRotation, determined = true): RelativeRotationResult {
+    return { rotation, nearest, residualDeg: 0, rmsAngleDeg: 0.5, determined, samplesUsed: 1000 };
+  }
+
+  test("a compass that behaves as yaw 90 but is declared none fails and names both", () => {
+    const check = mountingCheck(
+      "mag1",
+      { reference: "mag0", expected: identity, expectedName: "none", result: result(yaw90.matrix, yaw90) },
+      thresholds,
+    );
+    expect(check.status).toBe("fail");
+    expect(check.measured).toBeCloseTo(90, 6);
+    expect(check.explanation).toContain('as if rotated "yaw 90"');
+    expect(check.explanation).toContain('declared "none"');
+    expect(check.remedy).toContain('"yaw 90"');
+  });
+
+  test("as declared: pass", () => {
+    expect(
+      mountingCheck(
+        "mag1",
+        { reference: "mag0", expected: yaw90.matrix, expectedName: "yaw 90", result: result(yaw90.matrix, yaw90) },
+        thresholds,
+      ).status,
+    ).toBe("pass");
+  });
+
+  test("undetermined rotation: skipped", () => {
+    expect(
+      mountingCheck(
+        "mag1",
+        { reference: "mag0", expected: identity, expectedName: "none", result: result(identity, none, false) },
+        thresholds,
+      ).status,
+    ).toBe("skipped");
+  });
+});
+
+describe("currentCouplingCheck", () => {
+  const coupling = (percentOfField: number): CurrentCouplingResult => ({
+    kind: "current",
+    slopePerUnit: [0.1, 0, 0],
+    slopeMagnitude: 0.1,
+    rSquared: [0.99, 0, 0],
+    maxInput: 30,
+    changeAtMax: [3, 0, 0],
+    changeAtMaxMagnitude: 3,
+    percentOfField,
+    fieldStrength: 50,
+    samplesUsed: 500,
+  });
+  test.each([
+    { label: "3%", percent: 3, status: "pass" },
+    { label: "8%", percent: 8, status: "warn" },
+    { label: "30%", percent: 30, status: "fail" },
+  ])("$label of the field → $status, always with the safety cautions", ({ percent, status }) => {
+    const check = currentCouplingCheck("mag0", coupling(percent), thresholds);
+    expect(check.status).toBe(status);
+    for (const caution of [
+      /propellers off/,
+      /restrained/,
+      /battery handled as its maker directs/,
+      /people clear/,
+      /aviation rules/,
+      /maker's manual/,
+    ]) {
+      expect(check.remedy).toMatch(caution);
+    }
+  });
+});

@@ -6,18 +6,11 @@ import { contextFor, getViewer, type WorkspaceContext } from "@/lib/guard";
 import type { Action } from "@/lib/permissions";
 import type { UserSummary } from "@/lib/data/users";
 import type { ActionState } from "@/lib/action-state";
+import { UserFacingError } from "@/lib/errors";
 
 export { idle, type ActionState } from "@/lib/action-state";
 
-/** An error whose message is safe and useful to show the person who caused it. */
-export class UserFacingError extends Error {
-  constructor(
-    message: string,
-    readonly field?: string,
-  ) {
-    super(message);
-  }
-}
+export { UserFacingError };
 
 const SECRET_FIELDS = /password|confirm|token/i;
 

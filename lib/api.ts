@@ -6,7 +6,7 @@ import { getWorkspaceAccess } from "@/lib/data/workspaces";
 import { contextFor, getViewer, type WorkspaceContext } from "@/lib/guard";
 import type { Action } from "@/lib/permissions";
 import type { UserSummary } from "@/lib/data/users";
-import { UserFacingError } from "@/lib/action";
+import { UserFacingError } from "@/lib/errors";
 
 export function jsonError(status: number, error: string, message: string, extra?: Record<string, unknown>) {
   return NextResponse.json({ error, message, ...extra }, { status });

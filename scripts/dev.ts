@@ -6,9 +6,12 @@ import { ensureDatabase, ensureObjectStorage, freePort, log, migrate, root, spaw
 async function main() {
   process.env.DATABASE_URL = ensureDatabase();
   await migrate();
+  await ensureObjectStorage(path.join(root, ".data", "s3"));
   const { seedDemo } = await import("@/lib/seed/seed-demo");
   const { closeDb } = await import("@/lib/db");
+  const { stopQueue } = await import("@/lib/jobs/queue");
   await seedDemo((line) => log("seed", line));
+  await stopQueue();
   await closeDb();
   if (!process.env.SMTP_HOST) {
     const smtpPort = Number(process.env.SMTP_PORT ?? (await freePort(2525)));
@@ -17,7 +20,6 @@ async function main() {
     process.env.SMTP_PORT = String(smtpPort);
     log("mail", `SMTP sink on 127.0.0.1:${smtpPort}; captured mail at /dev/mail`);
   }
-  await ensureObjectStorage(path.join(root, ".data", "s3"));
   const worker = spawnWorker();
   const nextBin = path.join(root, "node_modules", "next", "dist", "bin", "next");
   const port = process.env.PORT ?? "3000";

@@ -14,9 +14,12 @@ async function main() {
   log("start", `database ${process.env.DATABASE_URL.replace(/:[^:@/]+@/, ":***@")}`);
   await migrate();
 
+  await ensureObjectStorage(path.join(root, ".data", "s3"));
   const { seedDemo, demoCredentialsTable } = await import("@/lib/seed/seed-demo");
   const { closeDb } = await import("@/lib/db");
+  const { stopQueue } = await import("@/lib/jobs/queue");
   await seedDemo((line) => log("seed", line));
+  await stopQueue();
   await closeDb();
 
   const smtpPort = Number(process.env.SMTP_PORT ?? (await freePort(2525)));
@@ -27,8 +30,6 @@ async function main() {
     process.env.SMTP_PORT = String(smtpPort);
     log("mail", `SMTP sink on 127.0.0.1:${smtpPort}; captured mail at http://${host}:${port}/dev/mail`);
   }
-
-  await ensureObjectStorage(path.join(root, ".data", "s3"));
 
   const env: NodeJS.ProcessEnv = {
     ...process.env,

@@ -1,6 +1,6 @@
 import "server-only";
 import { Op, type Order, type WhereOptions } from "sequelize";
-import { UserFacingError } from "@/lib/action";
+import { UserFacingError } from "@/lib/errors";
 import { recordAudit } from "@/lib/audit";
 import { db } from "@/lib/db";
 import { UPLOAD_LIMITS, type ModelChoice, type RunStatus } from "@/lib/fleet-terms";

@@ -1,6 +1,6 @@
 import "server-only";
 import { UniqueConstraintError } from "sequelize";
-import { UserFacingError } from "@/lib/action";
+import { UserFacingError } from "@/lib/errors";
 import { recordAudit } from "@/lib/audit";
 import { db } from "@/lib/db";
 import type { Site } from "@/models";

@@ -1,6 +1,6 @@
 import "server-only";
 import { Op, UniqueConstraintError, type WhereOptions } from "sequelize";
-import { UserFacingError } from "@/lib/action";
+import { UserFacingError } from "@/lib/errors";
 import { recordAudit } from "@/lib/audit";
 import { db } from "@/lib/db";
 import type { VehicleKind } from "@/lib/fleet-terms";

@@ -11,6 +11,7 @@ export async function seedDemo(log: (line: string) => void = () => {}): Promise<
   const existing = await models.Workspace.findOne({ where: { slug: DEMO_WORKSPACES[0].slug } });
   if (existing) {
     log("demo workspaces already present");
+    await seedFleetOf(existing.id, log);
     return { created: false };
   }
   await sequelize.transaction(async (transaction) => {
@@ -29,7 +30,17 @@ export async function seedDemo(log: (line: string) => void = () => {}): Promise<
     }
   });
   log(`created ${DEMO_WORKSPACES.length} demo workspaces and ${DEMO_PEOPLE.length} people`);
+  const operator = await models.Workspace.findOne({ where: { slug: DEMO_WORKSPACES[0].slug } });
+  await seedFleetOf(operator!.id, log);
   return { created: true };
+}
+
+/** The operator's fleet and simulated runs, made by the demo technician; skipped once present. */
+async function seedFleetOf(workspaceId: string, log: (line: string) => void): Promise<void> {
+  const { models } = db();
+  const technician = await models.User.findOne({ where: { email: DEMO_PEOPLE.find((p) => p.memberships.some((m) => m.role === "technician"))!.email } });
+  const { seedDemoFleet } = await import("@/lib/seed/demo-fleet");
+  await seedDemoFleet(workspaceId, technician!.id, log);
 }
 
 export function demoCredentialsTable(): string {

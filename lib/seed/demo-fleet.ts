@@ -1,0 +1,178 @@
+import { magneticReference } from "@/geometry/magnetic-reference";
+import type { CaptureSpec } from "@/geometry/magnetometer-types";
+import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { simulateCapture, tableToCsv } from "@/geometry/simulator";
+import type { Mat3 } from "@/geometry/types";
+import { createRun, markUploaded } from "@/lib/data/runs";
+import { createSensor, type SensorInput } from "@/lib/data/sensors";
+import { createSite, type SiteSummary } from "@/lib/data/sites";
+import { createVehicle, type VehicleInput } from "@/lib/data/vehicles";
+import { db } from "@/lib/db";
+import { processRunVersion } from "@/lib/jobs/process-run-version";
+import { putObject } from "@/lib/storage";
+
+/**
+ * The demo fleet of the invented survey operator: sites at coordinates of our choosing (so the
+ * World Magnetic Model gives them real field values), vehicles with their compasses and
+ * accelerometers, and runs made by the simulator, each showing one thing a technician meets:
+ * good calibrations, incomplete rotation, a mast module mounted against its declaration,
+ * steel nearby, strong current coupling, and a wobbly accelerometer hold.
+ */
+const SITES = [
+  { name: "Quillmere strip", latitudeDeg: 54.62, longitudeDeg: -2.91, altitudeM: 212, notes: "Grass strip, north end, 40 m from the hangar." },
+  { name: "Tarn jetty", latitudeDeg: 57.08, longitudeDeg: -5.62, altitudeM: 6, notes: "Timber jetty; keep clear of the steel bollards at the far end." },
+  { name: "Saltmarsh depot", latitudeDeg: 52.96, longitudeDeg: 0.84, altitudeM: 3, notes: "Concrete yard with rebar: calibrate on the grass beyond the fence." },
+];
+
+const mag = (label: string, placement: "internal" | "external", mountingRotation = "none", columnHints: string[] = []): SensorInput => ({
+  kind: "magnetometer",
+  label,
+  placement,
+  mountingRotation,
+  units: "uT",
+  columnHints,
+});
+const accel: SensorInput = { kind: "accelerometer", label: "board IMU", placement: "internal", mountingRotation: "none", units: "m/s2", columnHints: [] };
+const gyro: SensorInput = { kind: "gyroscope", label: "board IMU", placement: "internal", mountingRotation: "none", units: "rad/s", columnHints: [] };
+
+const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
+  {
+    vehicle: { name: "Heron 1", kind: "multirotor", airframe: "Quad, 550 mm carbon arms, mast GNSS", serialTag: "QSC-H1", customer: "Quillmere Survey", notes: "Primary mapping quad." },
+    sensors: [mag("board", "internal"), mag("mast module", "external"), accel, gyro],
+  },
+  {
+    vehicle: { name: "Heron 2", kind: "multirotor", airframe: "Quad, 550 mm carbon arms, mast GNSS", serialTag: "QSC-H2", customer: "Quillmere Survey", notes: "" },
+    sensors: [mag("board", "internal"), accel, gyro],
+  },
+  {
+    vehicle: { name: "Skylark", kind: "vtol", airframe: "Tilt-rotor VTOL, 2.1 m span", serialTag: "QSC-SK", customer: "Quillmere Survey", notes: "Mast module refitted after a hard landing." },
+    sensors: [mag("board", "internal"), mag("mast module", "external"), accel, gyro],
+  },
+  {
+    vehicle: { name: "Marsh rover", kind: "rover", airframe: "Four-wheel skid-steer, aluminium chassis", serialTag: "QSC-MR", customer: "Saltmarsh works", notes: "" },
+    sensors: [mag("board", "internal"), accel, gyro],
+  },
+  {
+    vehicle: { name: "Kelp", kind: "boat", airframe: "Survey catamaran, 1.4 m", serialTag: "QSC-KB", customer: "Tarn harbour trust", notes: "" },
+    sensors: [mag("mast module", "external"), accel, gyro],
+  },
+];
+
+const SIX = ["+z", "-z", "+x", "-x", "+y", "-y"] as const;
+const rotation = (name: string): Mat3 => mountingRotationByName(name)!.matrix;
+
+interface DemoRun {
+  vehicle: string;
+  site: string;
+  capturedOn: string;
+  title: string;
+  slots: Record<string, string>;
+  spec: CaptureSpec;
+  powersMotors?: boolean;
+  sharedWithStudents?: boolean;
+}
+
+const RUNS: DemoRun[] = [
+  {
+    vehicle: "Heron 1",
+    site: "Quillmere strip",
+    capturedOn: "2026-09-14",
+    title: "Annual check: both compasses",
+    slots: { mag0: "magnetometer:board", mag1: "magnetometer:mast module", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    spec: { seed: 101, holds: { faces: [...SIX] }, magnetometers: [{ hardIronOffset: [14, -6, 22], softIron: "mild" }, { hardIronOffset: [-3, 5, 2] }] },
+    sharedWithStudents: true,
+  },
+  {
+    vehicle: "Heron 2",
+    site: "Quillmere strip",
+    capturedOn: "2026-10-02",
+    title: "Rushed turn: never turned over",
+    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    spec: { seed: 102, path: "upper-half", magnetometers: [{ hardIronOffset: [8, 11, -15], softIron: "mild" }] },
+    sharedWithStudents: true,
+  },
+  {
+    vehicle: "Skylark",
+    site: "Quillmere strip",
+    capturedOn: "2026-10-19",
+    title: "After mast refit",
+    slots: { mag0: "magnetometer:board", mag1: "magnetometer:mast module", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    // The refitted module sits turned 90° in yaw; it is still declared as not rotated.
+    spec: { seed: 103, magnetometers: [{ hardIronOffset: [5, -9, 12] }, { mountingRotation: rotation("yaw 90"), declaredRotation: rotation("none") }] },
+    sharedWithStudents: true,
+  },
+  {
+    vehicle: "Marsh rover",
+    site: "Saltmarsh depot",
+    capturedOn: "2026-10-23",
+    title: "In the yard, beside the container",
+    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    spec: { seed: 104, steel: { distanceM: 0.7, strength: 6 }, magnetometers: [{ hardIronOffset: [-20, 4, 9] }] },
+  },
+  {
+    vehicle: "Heron 1",
+    site: "Quillmere strip",
+    capturedOn: "2026-10-30",
+    title: "Motor current test (props off, restrained)",
+    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    spec: { seed: 105, holds: { faces: ["+z"] }, pathSeconds: 50, magnetometers: [{ hardIronOffset: [14, -6, 22], currentCoupling: [0.32, 0.12, -0.26] }], currentTest: { maxAmps: 38 } },
+    powersMotors: true,
+  },
+  {
+    vehicle: "Heron 2",
+    site: "Quillmere strip",
+    capturedOn: "2026-11-06",
+    title: "Six-face hold, shaky hands",
+    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    spec: { seed: 106, holds: { faces: [...SIX], wobbleDeg: 0.8, holdSeconds: 5 }, pathSeconds: 40, accelerometer: { offset: [0.12, -0.08, 0.2], scale: [1.01, 0.99, 1.02] } },
+  },
+  {
+    vehicle: "Kelp",
+    site: "Tarn jetty",
+    capturedOn: "2026-11-20",
+    title: "Season start",
+    slots: { mag0: "magnetometer:mast module", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    spec: { seed: 107, holds: { faces: [...SIX] }, magnetometers: [{ hardIronOffset: [2, -4, 6], softIron: "mild" }] },
+  },
+];
+
+export async function seedDemoFleet(workspaceId: string, actorId: string, log: (line: string) => void): Promise<void> {
+  const { models } = db();
+  if ((await models.Vehicle.count({ where: { workspaceId } })) > 0) return;
+  const sites = new Map<string, SiteSummary>();
+  for (const site of SITES) sites.set(site.name, await createSite(workspaceId, actorId, site));
+  const sensorIds = new Map<string, string>();
+  const vehicleIds = new Map<string, string>();
+  for (const { vehicle, sensors } of VEHICLES) {
+    const created = await createVehicle(workspaceId, actorId, vehicle);
+    vehicleIds.set(vehicle.name, created.id);
+    for (const sensor of sensors) sensorIds.set(`${vehicle.name}/${sensor.kind}:${sensor.label}`, (await createSensor(workspaceId, actorId, created.id, sensor)).id);
+  }
+  for (const demo of RUNS) {
+    const site = sites.get(demo.site)!;
+    const field = magneticReference(site, new Date(`${demo.capturedOn}T12:00:00Z`)).fieldNedMicrotesla;
+    const csv = tableToCsv(simulateCapture({ ...demo.spec, siteFieldNed: field }).table);
+    const { run } = await createRun(workspaceId, actorId, {
+      vehicleId: vehicleIds.get(demo.vehicle)!,
+      siteId: site.id,
+      capturedOn: demo.capturedOn,
+      title: demo.title,
+      fileName: `${demo.vehicle.toLowerCase().replace(/\s+/g, "-")}-${demo.capturedOn}.csv`,
+      fileSize: Buffer.byteLength(csv),
+      columnMapping: {},
+      units: { magnetic: "uT", acceleration: "m/s2", rate: "rad/s", time: "s" },
+      sensorSlots: Object.fromEntries(Object.entries(demo.slots).map(([slot, key]) => [slot, sensorIds.get(`${demo.vehicle}/${key}`)!])),
+      model: "auto",
+      powersMotors: demo.powersMotors ?? false,
+      simulated: true,
+      sharedWithStudents: demo.sharedWithStudents ?? false,
+    });
+    const fileKey = (await models.Run.findByPk(run.id))!.fileKey;
+    await putObject(fileKey, csv, "text/csv");
+    await markUploaded(workspaceId, actorId, run.id);
+    const versionId = (await models.Run.findByPk(run.id))!.currentVersionId!;
+    const outcome = await processRunVersion(versionId);
+    const done = await models.Run.findByPk(run.id);
+    log(`run "${demo.title}" (${demo.vehicle}): ${outcome}, verdict ${done?.verdict ?? "-"}`);
+  }
+}

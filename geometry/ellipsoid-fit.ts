@@ -179,20 +179,22 @@ export function quadricToEllipsoid(coefficients: number[], model: MagModel, norm
   };
 }
 
+/** Samples used to choose the normalisation of the algebraic fit (conditioning only). */
+const NORMALISATION_SAMPLES = 10_000;
+
 /**
- * Algebraic fit of one model to the selected samples (input units, any). Two streaming
- * passes (normalisation, scatter), then a small eigenproblem. Fails with a reason when the
- * samples do not determine an ellipsoid.
+ * Algebraic fit of one model to the selected samples (input units, any). One streaming pass
+ * (the scatter; the normalisation comes from a strided subset), then a small eigenproblem.
+ * Fails with a reason when the samples do not determine an ellipsoid.
  */
 export function fitEllipsoidAlgebraic(series: Vec3Series, model: MagModel, selection: SampleSelection = {}): AlgebraicFitResult {
-  const normalisation = normalisationOf(series, selection);
-  if (normalisation.count < MODEL_PARAMETER_COUNT[model] + 1) {
-    return {
-      ok: false,
-      detail: `${normalisation.count} samples cannot fix the ${MODEL_PARAMETER_COUNT[model]} parameters of the ${model} model`,
-    };
-  }
+  const normalisation = normalisationOf(series, selection, NORMALISATION_SAMPLES);
   const scatter = accumulateQuadricScatter(series, normalisation, selection);
+  // The last entry of DᵀD sums 1·1: the number of samples.
+  const count = scatter[QUADRIC_TERMS * QUADRIC_TERMS - 1];
+  if (count < MODEL_PARAMETER_COUNT[model] + 1) {
+    return { ok: false, detail: `${count} samples cannot fix the ${MODEL_PARAMETER_COUNT[model]} parameters of the ${model} model` };
+  }
   const coefficients = solveQuadric(scatter, model);
   if (!coefficients) return { ok: false, detail: "the samples do not determine a quadric surface (singular normal equations)" };
   const estimate = quadricToEllipsoid(coefficients, model, normalisation);

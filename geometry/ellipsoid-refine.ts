@@ -22,14 +22,7 @@
  */
 import type { EllipsoidEstimate } from "./ellipsoid-fit";
 import type { MagModel } from "./magnetometer-types";
-import {
-  normalisationOf,
-  sumRadialCost,
-  sumRadialNormalEquations,
-  type Normalisation,
-  type RadialSums,
-  type SampleSelection,
-} from "./normal-equations";
+import { sumRadialCost, sumRadialNormalEquations, type Normalisation, type RadialSums, type SampleSelection } from "./normal-equations";
 import type { Mat3, Vec3, Vec3Series } from "./types";
 import { EPSILON, det3, scaleMat, sub } from "./vector";
 
@@ -280,7 +273,10 @@ export function refineEllipsoid(
 ): RefineResult {
   const maxIterations = options.maxIterations ?? 50;
   const limit = options.subsampleLimit ?? 40_000;
-  const norm = normalisationOf(series, selection);
+  // Normalised coordinates centred on the starting offset and scaled by its radius: the
+  // samples sit near the unit sphere and M near W, which keeps the normal equations well
+  // conditioned without a pass over the data.
+  const norm: Normalisation = { centre: initial.hardIronOffset, scale: initial.fieldStrength, count: 0 };
   let p = toParameters(initial, norm);
   let iterations = 0;
   const total = selection.indices ? selection.indices.length : series.x.length;

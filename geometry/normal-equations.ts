@@ -27,7 +27,7 @@ export interface SampleSelection {
   indices?: Int32Array;
 }
 
-/** Centre and scale of the normalised coordinates u = (x − centre) / scale. */
+/** Centre and scale of the normalised coordinates u = (x − centre) / scale, and how many samples set them. */
 export interface Normalisation {
   centre: Vec3;
   scale: number;
@@ -47,18 +47,22 @@ export function selectedCount(series: Vec3Series, selection: SampleSelection = {
 }
 
 /**
- * Mean and RMS distance from the mean of the selected samples (two streaming sums). A scale
- * of zero (all samples identical) is replaced by 1 so that callers can still divide.
+ * Mean and RMS distance from the mean of the selected samples (two streaming sums), or of an
+ * evenly strided subset of about `limit` of them — enough for what the result is used for,
+ * conditioning, at a fraction of the cost on long captures. `count` is the number of
+ * samples it was computed from. A scale of zero (all samples identical) is replaced by 1 so
+ * that callers can still divide.
  */
-export function normalisationOf(series: Vec3Series, selection: SampleSelection = {}): Normalisation {
+export function normalisationOf(series: Vec3Series, selection: SampleSelection = {}, limit = Infinity): Normalisation {
   const { x, y, z } = series;
   const { mask, indices } = selection;
   const total = indices ? indices.length : x.length;
+  const stride = total > limit ? Math.floor(total / limit) : 1;
   let count = 0;
   let sx = 0;
   let sy = 0;
   let sz = 0;
-  for (let k = 0; k < total; k++) {
+  for (let k = 0; k < total; k += stride) {
     const i = indices ? indices[k] : k;
     if (mask && mask[i] === 0) continue;
     sx += x[i];
@@ -71,7 +75,7 @@ export function normalisationOf(series: Vec3Series, selection: SampleSelection =
   const cy = sy / count;
   const cz = sz / count;
   let ss = 0;
-  for (let k = 0; k < total; k++) {
+  for (let k = 0; k < total; k += stride) {
     const i = indices ? indices[k] : k;
     if (mask && mask[i] === 0) continue;
     const dx = x[i] - cx;

@@ -38,6 +38,14 @@ describe("normalisationOf", () => {
     expect(normalisationOf(two)).toEqual({ centre: [1, 0, 0], scale: 1, count: 2 });
   });
 
+  test("with a limit, an evenly strided subset sets the normalisation", () => {
+    // Strides of 2 over the five samples pick indices 0, 2 and 4.
+    const subset = normalisationOf(series, {}, 2);
+    const picked: Vec3Series = { x: Float64Array.from([1, -2, 3]), y: Float64Array.from([2, 0, 2]), z: Float64Array.from([0, 1, 2]) };
+    expect(subset).toEqual(normalisationOf(picked));
+    expect(subset.count).toBe(3);
+  });
+
   test("identical samples give scale 1 instead of 0", () => {
     const same: Vec3Series = { x: Float64Array.from([5, 5]), y: Float64Array.from([5, 5]), z: Float64Array.from([5, 5]) };
     expect(normalisationOf(same).scale).toBe(1);

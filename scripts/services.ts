@@ -2,7 +2,7 @@
  * The local services every command needs — PostgreSQL (scripts/db.sh), migrations and the
  * SMTP sink — started from one place so `npm start`, `npm run dev` and `npm test` agree.
  */
-import { execFileSync } from "node:child_process";
+import { execFileSync, spawn, type StdioOptions } from "node:child_process";
 import net from "node:net";
 import path from "node:path";
 
@@ -77,10 +77,7 @@ export async function ensureObjectStorage(directory: string): Promise<{ close: (
   return fake;
 }
 
-/** The background worker (scripts/worker.ts) as a child process with this environment. */
-export function spawnWorker(env: NodeJS.ProcessEnv = process.env) {
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
-  const { spawn } = require("node:child_process") as typeof import("node:child_process");
-  const tsx = path.join(root, "node_modules", "tsx", "dist", "cli.mjs");
-  return spawn(process.execPath, [tsx, "--conditions=react-server", path.join(root, "scripts", "worker.ts")], { cwd: root, env, stdio: "inherit" });
+/** The background worker (scripts/worker.ts) as one child process (tsx as a loader, not a wrapper) with this environment. */
+export function spawnWorker(env: NodeJS.ProcessEnv = process.env, stdio: StdioOptions = "inherit") {
+  return spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(root, "scripts", "worker.ts")], { cwd: root, env, stdio });
 }

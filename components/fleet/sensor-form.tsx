@@ -1,0 +1,137 @@
+"use client";
+
+import { useState } from "react";
+import { PendingButton, ProblemMessage, useApiForm } from "@/components/ui/api-form";
+import { SelectField, TextField } from "@/components/ui/field";
+import { MOUNTING_ROTATIONS } from "@/geometry/mounting-rotations";
+import { apiFetch } from "@/lib/api-client";
+import type { SensorSummary } from "@/lib/data/sensors";
+import { ACCEL_UNITS, FIELD_UNITS, RATE_UNITS, SENSOR_KINDS, SENSOR_KIND_LABELS, type SensorKind } from "@/lib/fleet-terms";
+
+const UNIT_LABELS: Record<string, string> = {
+  uT: "µT (microtesla)",
+  nT: "nT (nanotesla)",
+  mG: "mG (milligauss)",
+  G: "G (gauss)",
+  "m/s2": "m/s²",
+  g: "g (standard gravity)",
+  "rad/s": "rad/s",
+  "deg/s": "°/s",
+  counts: "raw counts",
+};
+const UNITS_BY_KIND: Record<SensorKind, readonly string[]> = {
+  magnetometer: FIELD_UNITS,
+  accelerometer: ACCEL_UNITS,
+  gyroscope: RATE_UNITS,
+};
+
+const KIND_OPTIONS = SENSOR_KINDS.map((k) => ({ value: k, label: SENSOR_KIND_LABELS[k] }));
+const PLACEMENT_OPTIONS = [
+  { value: "internal", label: "Internal: on the flight controller board" },
+  { value: "external", label: "External: a separate module, e.g. on a mast" },
+];
+const ROTATION_OPTIONS = MOUNTING_ROTATIONS.map((r) => ({ value: r.name, label: r.name }));
+
+/** Add a sensor to a vehicle, or edit one when `sensor` is given. */
+export function SensorForm({
+  slug,
+  vehicleId,
+  sensor,
+  onSaved,
+  onCancel,
+}: {
+  slug: string;
+  vehicleId: string;
+  sensor?: SensorSummary;
+  onSaved: (sensor: SensorSummary) => void;
+  onCancel: () => void;
+}) {
+  const editing = sensor !== undefined;
+  const [kind, setKind] = useState<SensorKind>(sensor?.kind ?? "magnetometer");
+  const unitChoices = UNITS_BY_KIND[kind];
+  const [units, setUnits] = useState(sensor && unitChoices.includes(sensor.units) ? sensor.units : unitChoices[0]);
+  const { onSubmit, pending, problem, fieldError } = useApiForm(async (values) => {
+    const body = {
+      kind: values.kind,
+      label: values.label,
+      placement: values.placement,
+      mountingRotation: values.mountingRotation,
+      units: values.units,
+      columnHints: values.columnHints ?? "",
+    };
+    const url = editing ? `/api/workspaces/${slug}/sensors/${sensor.id}` : `/api/workspaces/${slug}/vehicles/${vehicleId}/sensors`;
+    return (await apiFetch<{ sensor: SensorSummary }>(url, { method: editing ? "PATCH" : "POST", json: body })).sensor;
+  }, onSaved);
+  const prefix = editing ? `sensor-${sensor.id.slice(0, 8)}` : "sensor-new";
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label={editing ? `Edit ${sensor.label}` : "Add a sensor"}>
+      <ProblemMessage problem={problem} />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          id={`${prefix}-kind`}
+          name="kind"
+          label="Sensor"
+          value={kind}
+          onChange={(event) => {
+            const next = event.target.value as SensorKind;
+            setKind(next);
+            setUnits(UNITS_BY_KIND[next][0]);
+          }}
+          options={KIND_OPTIONS}
+          error={fieldError("kind")}
+        />
+        <TextField
+          id={`${prefix}-label`}
+          name="label"
+          label="Label"
+          defaultValue={sensor?.label}
+          maxLength={80}
+          hint="Your own name for it, e.g. “board” or “mast module”."
+          error={fieldError("label")}
+        />
+        <SelectField
+          id={`${prefix}-placement`}
+          name="placement"
+          label="Placement"
+          defaultValue={sensor?.placement ?? "internal"}
+          options={PLACEMENT_OPTIONS}
+          error={fieldError("placement")}
+        />
+        <SelectField
+          id={`${prefix}-units`}
+          name="units"
+          label="Units it logs in"
+          value={units}
+          onChange={(event) => setUnits(event.target.value)}
+          options={unitChoices.map((u) => ({ value: u, label: UNIT_LABELS[u] ?? u }))}
+          error={fieldError("units")}
+        />
+      </div>
+      <SelectField
+        id={`${prefix}-mounting`}
+        name="mountingRotation"
+        label="Declared mounting rotation"
+        defaultValue={sensor?.mountingRotation ?? "none"}
+        options={ROTATION_OPTIONS}
+        error={fieldError("mountingRotation")}
+        hint="How the sensor is turned relative to the board (x forward, y right, z down). Declare the rotation it is really mounted at: a compass mounted at another rotation than declared points the heading the wrong way as the vehicle turns, which makes it circle and drift away."
+      />
+      <TextField
+        id={`${prefix}-columns`}
+        name="columnHints"
+        label="Usual CSV columns"
+        defaultValue={sensor?.columnHints.join(", ")}
+        placeholder="e.g. mag_x, mag_y, mag_z"
+        hint="Separated by commas. The upload page uses them to match a file's columns to this sensor."
+        error={fieldError("columnHints")}
+      />
+      <div className="flex flex-wrap gap-2">
+        <PendingButton pending={pending}>{editing ? "Save the sensor" : "Add the sensor"}</PendingButton>
+        <button type="button" className="btn-quiet" onClick={onCancel}>
+          Cancel
+        </button>
+      </div>
+    </form>
+  );
+}

@@ -118,13 +118,14 @@ function concentrationAbout(series: Vec3Series, eligible: Uint8Array, centre: Ve
   const { x, y, z } = series;
   // prettier-ignore
   let sx = 0, sy = 0, sz = 0, n = 0;
+  const tiny = EPSILON; // read once, outside the loop
   for (let i = 0; i < x.length; i++) {
     if (eligible[i] === 0) continue;
     const dx = x[i] - centre[0];
     const dy = y[i] - centre[1];
     const dz = z[i] - centre[2];
     const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
-    if (len < EPSILON) continue;
+    if (len < tiny) continue;
     sx += dx / len;
     sy += dy / len;
     sz += dz / len;

@@ -273,6 +273,8 @@ export function sumRadialNormalEquations(
   jtj: Float64Array | null,
 ): RadialSums {
   const withCurvature = jtj !== null;
+  // Read once: an imported binding can be a getter call per access in some module formats.
+  const tiny = EPSILON;
   const { x, y, z } = series;
   const { mask, indices } = selection;
   const total = indices ? indices.length : x.length;
@@ -310,7 +312,7 @@ export function sumRadialNormalEquations(
     cost += r * r;
     count++;
     // A sample at the centre has no radial direction and adds nothing to the gradient.
-    if (rho < EPSILON) continue;
+    if (rho < tiny) continue;
     const n0 = v0 / rho;
     const n1 = v1 / rho;
     const n2 = v2 / rho;

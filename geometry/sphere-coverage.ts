@@ -30,6 +30,8 @@ export interface CoverageOptions {
   inclinationDeg?: number;
 }
 
+// Bound once: an imported binding can be a getter call per access in some module formats.
+const indexOf = cellIndexOf;
 const CANDIDATE_RESOLUTION = 16;
 const REPRESENTATIVE_RESOLUTION = 32;
 let candidateCache: Float64Array | null = null;
@@ -67,7 +69,7 @@ export function largestEmptyCap(directions: Vec3Series, mask?: Uint8Array): { ce
     if (mask && mask[i] === 0) continue;
     const len = Math.sqrt(x[i] * x[i] + y[i] * y[i] + z[i] * z[i]);
     if (!(len > 0) || !Number.isFinite(len)) continue;
-    const cell = cellIndexOf(x[i], y[i], z[i], REPRESENTATIVE_RESOLUTION);
+    const cell = indexOf(x[i], y[i], z[i], REPRESENTATIVE_RESOLUTION);
     if (taken[cell]) continue;
     taken[cell] = 1;
     points[3 * count] = x[i] / len;
@@ -156,7 +158,7 @@ export function sphereCoverage(directions: Vec3Series, options: CoverageOptions 
     if (mask && mask[i] === 0) continue;
     const len = x[i] * x[i] + y[i] * y[i] + z[i] * z[i];
     if (!(len > 0) || !Number.isFinite(len)) continue;
-    counts[cellIndexOf(x[i], y[i], z[i], gridResolution)]++;
+    counts[indexOf(x[i], y[i], z[i], gridResolution)]++;
   }
   const covered = counts.filter((c) => c >= minSamplesPerCell).length;
   const gap = largestEmptyCap(directions, mask);

@@ -29,6 +29,7 @@ export function relativeRotation(reference: Vec3Series, other: Vec3Series, mask?
   const n = Math.min(reference.x.length, other.x.length);
   const b = new Float64Array(9);
   let used = 0;
+  const tiny = EPSILON; // read once, outside the loop
   for (let i = 0; i < n; i++) {
     if (mask && mask[i] === 0) continue;
     // prettier-ignore
@@ -37,7 +38,7 @@ export function relativeRotation(reference: Vec3Series, other: Vec3Series, mask?
     const bx = other.x[i], by = other.y[i], bz = other.z[i];
     const la = Math.sqrt(ax * ax + ay * ay + az * az);
     const lb = Math.sqrt(bx * bx + by * by + bz * bz);
-    if (!(la > EPSILON) || !(lb > EPSILON) || !Number.isFinite(la + lb)) continue;
+    if (!(la > tiny) || !(lb > tiny) || !Number.isFinite(la + lb)) continue;
     const ua = [ax / la, ay / la, az / la];
     const ub = [bx / lb, by / lb, bz / lb];
     for (let r = 0; r < 3; r++) for (let c = 0; c < 3; c++) b[r * 3 + c] += ua[r] * ub[c];

@@ -72,11 +72,3 @@ export function round(value: number, digits: number): number {
 export function fmt(value: number, digits = 1): string {
   return value.toFixed(digits).replace(/^-/, "−");
 }
-
-/** Words for a status, for sentences such as "this is a warning". */
-export const STATUS_WORD: Record<CheckStatus, string> = {
-  pass: "within limits",
-  warn: "worth attention",
-  fail: "outside limits",
-  skipped: "not checked",
-};

@@ -35,6 +35,10 @@ export interface IngestOptions {
   minRows?: number;
   /** Refuse a file without a time column; default true. */
   requireTime?: boolean;
+  /** Most data rows accepted; default unlimited. */
+  maxRows?: number;
+  /** Most columns in the header; default unlimited. */
+  maxColumns?: number;
 }
 
 export interface IngestedCapture {
@@ -125,6 +129,9 @@ class TableBuilder {
         `the header "${cells[0].slice(0, 80)}" is a single column: the delimiter was not recognised; separate columns with commas, tabs or semicolons`,
       );
     }
+    if (this.options.maxColumns !== undefined && cells.length > this.options.maxColumns) {
+      throw new IngestError(this.row, null, `the header has ${cells.length} columns; at most ${this.options.maxColumns} are accepted`);
+    }
     this.header = cells.map((cell) => cell.trim());
     const recognition = recogniseColumns(this.header, this.options.map);
     this.recognition = recognition;
@@ -164,6 +171,9 @@ class TableBuilder {
         const hint = cells.length === 1 ? ` (is this row separated by something other than a ${DELIMITER_NAMES[this.delimiter]}?)` : "";
         throw new IngestError(this.row, null, `${cells.length} values where the header has ${width} columns${hint}`);
       }
+    }
+    if (this.options.maxRows !== undefined && this.length >= this.options.maxRows) {
+      throw new IngestError(this.row, null, `more than ${this.options.maxRows} data rows; split the capture into smaller files`);
     }
     const at = this.length % BLOCK_ROWS;
     if (at === 0) for (const reader of this.readers) reader.blocks.push(new Float64Array(BLOCK_ROWS));

@@ -82,6 +82,8 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       map: run.columnMapping as Record<string, CaptureField | "ignore">,
       minRows: UPLOAD_LIMITS.minSamples,
       requireTime: false,
+      maxRows: UPLOAD_LIMITS.maxRows,
+      maxColumns: UPLOAD_LIMITS.maxColumns,
     });
   } catch (error) {
     if (error instanceof IngestError) return fail(versionId, { message: error.message, row: error.row ?? undefined, column: error.column ?? undefined });

@@ -231,3 +231,24 @@ describe("parseCsvStream", () => {
     expect(error.message).toMatch(/too few samples/);
   });
 });
+
+describe("limits on rows and columns", () => {
+  const header = "time,mag_x,mag_y,mag_z";
+  const body = Array.from({ length: 30 }, (_, i) => `${i},${i},${i + 1},${i + 2}`).join("\n");
+  test.each([
+    ["one row too many", { maxRows: 29 }, /more than 29 data rows/, 31],
+    ["too many columns", { maxColumns: 3 }, /4 columns; at most 3/, 1],
+  ])("%s is refused with its row", (_label, limits, message, row) => {
+    try {
+      parseCsvTable(`${header}\n${body}\n`, limits);
+      throw new Error("expected an IngestError");
+    } catch (error) {
+      expect(error).toBeInstanceOf(IngestError);
+      expect((error as IngestError).message).toMatch(message);
+      expect((error as IngestError).row).toBe(row);
+    }
+  });
+  test("exactly at the limits is accepted", () => {
+    expect(parseCsvTable(`${header}\n${body}\n`, { maxRows: 30, maxColumns: 4 }).table.length).toBe(30);
+  });
+});

@@ -160,6 +160,9 @@ async function main(): Promise<void> {
       );
     }
   }
+  // The product's whole flow, from upload to results, through storage, the queue and the worker.
+  const { benchEndToEnd } = await import("./e2e-bench");
+  await benchEndToEnd();
 }
 
 main().catch((error) => {

@@ -118,7 +118,7 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
       ok: false,
       reason: support.reason,
       detail: support.detail,
-      coverage: finite > 0 ? roughCoverage(field, eligible, options) : undefined,
+      coverage: roughCoverage(field, eligible, options),
     };
   }
 

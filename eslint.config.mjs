@@ -20,7 +20,10 @@ const config = [
         "error",
         {
           patterns: [
-            { group: ["react", "react-dom", "next", "next/*", "sequelize", "pg", "three", "@react-three/*", "node:*", "fs", "path"], message: "geometry/ stays pure: no framework, database or Node imports." },
+            {
+              group: ["react", "react-dom", "next", "next/*", "sequelize", "pg", "three", "@react-three/*", "node:*", "fs", "path"],
+              message: "geometry/ stays pure: no framework, database or Node imports.",
+            },
             { group: ["@/lib/*", "@/components/*", "@/app/*", "@/models/*"], message: "geometry/ must not depend on the app." },
           ],
         },

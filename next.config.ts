@@ -2,7 +2,17 @@ import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
   // Sequelize loads its dialect dynamically; bundling it breaks that lookup.
-  serverExternalPackages: ["sequelize", "pg", "pg-hstore", "pg-boss", "iron-session", "nodemailer", "geomagnetism", "@aws-sdk/client-s3", "@aws-sdk/s3-request-presigner"],
+  serverExternalPackages: [
+    "sequelize",
+    "pg",
+    "pg-hstore",
+    "pg-boss",
+    "iron-session",
+    "nodemailer",
+    "geomagnetism",
+    "@aws-sdk/client-s3",
+    "@aws-sdk/s3-request-presigner",
+  ],
   poweredByHeader: false,
   reactStrictMode: true,
   typedRoutes: false,

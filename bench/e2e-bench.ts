@@ -18,13 +18,19 @@ const SIZES = [10_000, 100_000, 1_000_000];
 
 /** A simulated 100 Hz capture (two compasses, accelerometer, gyro) tiled to `rows` rows. */
 function tiledCsv(rows: number): string {
-  const base = simulateCapture({ seed: 2, sampleRateHz: 100, pathSeconds: 60, magnetometers: [{ hardIronOffset: [12, -5, 20], softIron: "mild" }, {}] }).table;
+  const base = simulateCapture({
+    seed: 2,
+    sampleRateHz: 100,
+    pathSeconds: 60,
+    magnetometers: [{ hardIronOffset: [12, -5, 20], softIron: "mild" }, {}],
+  }).table;
   const span = base.columns.time[base.length - 1] + 0.01;
   const columns: Record<string, Float64Array> = {};
   for (const field of base.fields) {
     const source = base.columns[field];
     const target = new Float64Array(rows);
-    for (let i = 0; i < rows; i++) target[i] = field === "time" ? source[i % base.length] + Math.floor(i / base.length) * span : source[i % base.length];
+    for (let i = 0; i < rows; i++)
+      target[i] = field === "time" ? source[i % base.length] + Math.floor(i / base.length) * span : source[i % base.length];
     columns[field] = target;
   }
   // Three decimals, as a logger writes them (µT, m/s², rad/s, s): about 100 MiB for 1M rows.
@@ -58,7 +64,14 @@ export async function benchEndToEnd(): Promise<void> {
   try {
     const user = await createUser({ name: "Bench", email: `bench-${process.pid}@bench.example`, password: "bench-password-1" });
     const workspace = await createWorkspace(user.id, { name: "Bench", slug: `bench-${process.pid}`, kind: "other" });
-    const vehicle = await createVehicle(workspace.id, user.id, { name: "Bench rig", kind: "other", airframe: "", serialTag: "", customer: "", notes: "" });
+    const vehicle = await createVehicle(workspace.id, user.id, {
+      name: "Bench rig",
+      kind: "other",
+      airframe: "",
+      serialTag: "",
+      customer: "",
+      notes: "",
+    });
     console.log("\nEnd to end: upload → done (worker process; PostgreSQL queue; object-storage fake)");
     console.log("rows        file MiB   upload s   processing s   total s   rows/s      worker peak RSS MiB");
     for (const rows of SIZES) {
@@ -90,7 +103,11 @@ export async function benchEndToEnd(): Promise<void> {
       const finished = performance.now();
       const total = (finished - started) / 1000;
       console.log(
-        `${String(rows).padEnd(11)} ${(bytes / 1048576).toFixed(1).padStart(8)}   ${((uploaded - started) / 1000).toFixed(2).padStart(8)}   ${((finished - uploaded) / 1000).toFixed(2).padStart(12)}   ${total.toFixed(2).padStart(7)}   ${Math.round(rows / total).toString().padStart(9)}   ${peakRssMiB(worker.pid!).toFixed(0).padStart(8)}`,
+        `${String(rows).padEnd(11)} ${(bytes / 1048576).toFixed(1).padStart(8)}   ${((uploaded - started) / 1000).toFixed(2).padStart(8)}   ${((finished - uploaded) / 1000).toFixed(2).padStart(12)}   ${total.toFixed(2).padStart(7)}   ${Math.round(
+          rows / total,
+        )
+          .toString()
+          .padStart(9)}   ${peakRssMiB(worker.pid!).toFixed(0).padStart(8)}`,
       );
     }
   } finally {

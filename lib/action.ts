@@ -53,7 +53,12 @@ async function run(formData: FormData, work: () => Promise<ActionState | void>):
       };
     }
     console.error("[action] unexpected error", error);
-    return { status: "error", code: "failed", message: "Something went wrong on our side. Try again in a moment.", values: formValues(formData) };
+    return {
+      status: "error",
+      code: "failed",
+      message: "Something went wrong on our side. Try again in a moment.",
+      values: formValues(formData),
+    };
   }
 }
 

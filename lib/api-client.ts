@@ -24,7 +24,12 @@ export async function apiFetch<T>(url: string, init: RequestInit & { json?: unkn
   const text = await response.text();
   const body = text ? (JSON.parse(text) as Record<string, unknown>) : {};
   if (!response.ok) {
-    throw new ApiError(response.status, String(body.error ?? "error"), String(body.message ?? `Request failed (${response.status})`), (body.fields as Record<string, string>) ?? {});
+    throw new ApiError(
+      response.status,
+      String(body.error ?? "error"),
+      String(body.message ?? `Request failed (${response.status})`),
+      (body.fields as Record<string, string>) ?? {},
+    );
   }
   return body as T;
 }
@@ -32,7 +37,8 @@ export async function apiFetch<T>(url: string, init: RequestInit & { json?: unkn
 /** Build `path?key=value…`, leaving out empty values. */
 export function withQuery(path: string, params: Record<string, string | number | undefined | null>): string {
   const search = new URLSearchParams();
-  for (const [key, value] of Object.entries(params)) if (value !== undefined && value !== null && value !== "") search.set(key, String(value));
+  for (const [key, value] of Object.entries(params))
+    if (value !== undefined && value !== null && value !== "") search.set(key, String(value));
   const text = search.toString();
   return text ? `${path}?${text}` : path;
 }

@@ -13,7 +13,10 @@ export function jsonError(status: number, error: string, message: string, extra?
 }
 
 /** Validate a JSON body; the error names each offending field. */
-export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<{ ok: true; data: z.infer<S> } | { ok: false; response: Response }> {
+export async function readJson<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+): Promise<{ ok: true; data: z.infer<S> } | { ok: false; response: Response }> {
   let body: unknown;
   try {
     body = await request.json();
@@ -28,7 +31,10 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S)
 }
 
 /** Validate the query string; the error names each offending parameter. */
-export function readQuery<S extends z.ZodType>(request: Request, schema: S): { ok: true; data: z.infer<S> } | { ok: false; response: Response } {
+export function readQuery<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+): { ok: true; data: z.infer<S> } | { ok: false; response: Response } {
   const params = Object.fromEntries(new URL(request.url).searchParams.entries());
   const result = schema.safeParse(params);
   if (result.success) return { ok: true, data: result.data };

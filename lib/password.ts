@@ -1,7 +1,12 @@
 import crypto from "node:crypto";
 import { promisify } from "node:util";
 
-const scrypt = promisify(crypto.scrypt) as (password: string, salt: Buffer, keylen: number, options: crypto.ScryptOptions) => Promise<Buffer>;
+const scrypt = promisify(crypto.scrypt) as (
+  password: string,
+  salt: Buffer,
+  keylen: number,
+  options: crypto.ScryptOptions,
+) => Promise<Buffer>;
 
 /** scrypt cost parameters (RFC 7914); N=2^15 with r=8 takes ~50 ms on one core here. */
 const PARAMS = { N: 1 << 15, r: 8, p: 1, maxmem: 64 * 1024 * 1024 };

@@ -36,13 +36,19 @@ function s3ForBrowsers(): S3Client {
 }
 
 export async function presignUpload(key: string, contentType: string, expiresInS = 3600): Promise<string> {
-  return getSignedUrl(s3ForBrowsers(), new PutObjectCommand({ Bucket: settings.bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInS });
+  return getSignedUrl(s3ForBrowsers(), new PutObjectCommand({ Bucket: settings.bucket, Key: key, ContentType: contentType }), {
+    expiresIn: expiresInS,
+  });
 }
 
 export async function presignDownload(key: string, fileName: string, expiresInS = 900): Promise<string> {
   return getSignedUrl(
     s3ForBrowsers(),
-    new GetObjectCommand({ Bucket: settings.bucket, Key: key, ResponseContentDisposition: `attachment; filename="${fileName.replace(/"/g, "")}"` }),
+    new GetObjectCommand({
+      Bucket: settings.bucket,
+      Key: key,
+      ResponseContentDisposition: `attachment; filename="${fileName.replace(/"/g, "")}"`,
+    }),
     { expiresIn: expiresInS },
   );
 }

@@ -16,7 +16,22 @@ import { Workspace } from "./workspace";
 
 /** Define every model on one Sequelize instance and wire their associations. */
 export function initModels(sequelize: Sequelize) {
-  for (const model of [User, Workspace, Membership, Invitation, PasswordResetToken, AuditEvent, SignInAttempt, Site, Vehicle, Sensor, Run, RunSensor, RunVersion, ApiToken]) {
+  for (const model of [
+    User,
+    Workspace,
+    Membership,
+    Invitation,
+    PasswordResetToken,
+    AuditEvent,
+    SignInAttempt,
+    Site,
+    Vehicle,
+    Sensor,
+    Run,
+    RunSensor,
+    RunVersion,
+    ApiToken,
+  ]) {
     model.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -35,7 +50,37 @@ export function initModels(sequelize: Sequelize) {
   Run.hasMany(RunSensor, { foreignKey: "runId", as: "runSensors" });
   RunSensor.belongsTo(Sensor, { foreignKey: "sensorId", as: "sensor" });
   ApiToken.belongsTo(User, { foreignKey: "userId", as: "user" });
-  return { User, Workspace, Membership, Invitation, PasswordResetToken, AuditEvent, SignInAttempt, Site, Vehicle, Sensor, Run, RunSensor, RunVersion, ApiToken };
+  return {
+    User,
+    Workspace,
+    Membership,
+    Invitation,
+    PasswordResetToken,
+    AuditEvent,
+    SignInAttempt,
+    Site,
+    Vehicle,
+    Sensor,
+    Run,
+    RunSensor,
+    RunVersion,
+    ApiToken,
+  };
 }
 
-export { ApiToken, AuditEvent, Invitation, Membership, PasswordResetToken, Run, RunSensor, RunVersion, Sensor, SignInAttempt, Site, User, Vehicle, Workspace };
+export {
+  ApiToken,
+  AuditEvent,
+  Invitation,
+  Membership,
+  PasswordResetToken,
+  Run,
+  RunSensor,
+  RunVersion,
+  Sensor,
+  SignInAttempt,
+  Site,
+  User,
+  Vehicle,
+  Workspace,
+};

@@ -72,7 +72,13 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         sharedWithStudents: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         fileKey: { type: DataTypes.STRING(300), allowNull: false },
         fileName: { type: DataTypes.STRING(255), allowNull: false },
-        fileSize: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue("fileSize")); } },
+        fileSize: {
+          type: DataTypes.BIGINT,
+          allowNull: false,
+          get() {
+            return Number(this.getDataValue("fileSize"));
+          },
+        },
         fileSha256: DataTypes.STRING(64),
         columnMapping: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         units: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },

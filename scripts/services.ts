@@ -79,5 +79,9 @@ export async function ensureObjectStorage(directory: string): Promise<{ close: (
 
 /** The background worker (scripts/worker.ts) as one child process (tsx as a loader, not a wrapper) with this environment. */
 export function spawnWorker(env: NodeJS.ProcessEnv = process.env, stdio: StdioOptions = "inherit") {
-  return spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(root, "scripts", "worker.ts")], { cwd: root, env, stdio });
+  return spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(root, "scripts", "worker.ts")], {
+    cwd: root,
+    env,
+    stdio,
+  });
 }

@@ -4,8 +4,8 @@
  *  2. make sure Debian's chromium is installed (browser tests drive it);
  *  3. start the project's PostgreSQL and create a throwaway database for this run, migrated;
  *  4. start the SMTP sink into a temporary folder;
- *  5. run every vitest project — unit, integration, browser (the browser project builds and
- *     serves the app itself, see tests/support/global-server.ts);
+ *  5. run the vitest projects one after another — unit, integration, browser (the browser
+ *     project builds and serves the app itself, see tests/support/global-server.ts);
  *  6. drop the throwaway database and remove the temporary folder, pass or fail.
  * Extra arguments go to vitest, e.g. `npm test -- --project unit`.
  */
@@ -28,7 +28,11 @@ function ensureChromium(): void {
   if (process.env.CHROMIUM_PATH || fs.existsSync("/usr/bin/chromium")) return;
   log("test", "installing Debian's chromium for the browser tests");
   const sudo = process.getuid?.() === 0 ? [] : ["sudo"];
-  const run = (args: string[]) => spawnSync(sudo[0] ?? args[0], sudo.length ? args : args.slice(1), { stdio: "inherit", env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
+  const run = (args: string[]) =>
+    spawnSync(sudo[0] ?? args[0], sudo.length ? args : args.slice(1), {
+      stdio: "inherit",
+      env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" },
+    });
   run(["apt-get", "update", "-qq"]);
   const install = run(["apt-get", "install", "-y", "-qq", "chromium"]);
   if (install.status !== 0) throw new Error("could not install chromium");
@@ -69,10 +73,18 @@ async function main() {
     }
     process.env.LOXODROME_DATA_DIR = path.join(tmp, "data");
     process.env.NEXT_TELEMETRY_DISABLED = "1";
-    log("test", `vitest run ${vitestArgs.join(" ")}`);
-    // Asynchronous on purpose: the SMTP sink lives in this process and must keep answering.
-    const vitest = spawn(npx, ["vitest", "run", ...vitestArgs], { cwd: root, env: process.env, stdio: "inherit" });
-    code = await new Promise<number>((resolve) => vitest.on("exit", (status) => resolve(status ?? 1)));
+    // The projects run one after another: the browser project's worker shares the queue with
+    // the integration tests, and two cores are better spent on one project at a time.
+    const explicit = vitestArgs.includes("--project");
+    const runs = explicit ? [vitestArgs] : ["unit", "integration", "browser"].map((project) => ["--project", project, ...vitestArgs]);
+    code = 0;
+    for (const args of runs) {
+      log("test", `vitest run ${args.join(" ")}`);
+      // Asynchronous on purpose: the SMTP sink lives in this process and must keep answering.
+      const vitest = spawn(npx, ["vitest", "run", ...args], { cwd: root, env: process.env, stdio: "inherit" });
+      const status = await new Promise<number>((resolve) => vitest.on("exit", (exit) => resolve(exit ?? 1)));
+      if (status !== 0) code = status;
+    }
   } finally {
     await new Promise<void>((resolve) => (smtp ? smtp.close(() => resolve()) : resolve()));
     await storage?.close().catch(() => undefined);

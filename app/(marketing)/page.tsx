@@ -38,14 +38,16 @@ export default async function HomePage() {
       <main>
         <section className="mx-auto grid max-w-6xl items-center gap-10 px-6 py-16 lg:grid-cols-[1.2fr_1fr]">
           <div className="space-y-6">
-            <p className="font-mono text-xs uppercase tracking-[0.2em] text-brass-600 dark:text-brass-300">Sensor calibration, checked and kept</p>
+            <p className="font-mono text-xs uppercase tracking-[0.2em] text-brass-600 dark:text-brass-300">
+              Sensor calibration, checked and kept
+            </p>
             <h1 className="text-4xl font-semibold leading-tight sm:text-5xl">
               Know that a compass is right before the vehicle leaves the ground.
             </h1>
             <p className="max-w-xl text-lg text-chart-muted">
               Loxodrome takes the samples logged while a vehicle is turned through every orientation, fits its magnetometers and
-              accelerometers on the server, tests each result against published references, explains what is wrong and keeps a
-              signed history per airframe.
+              accelerometers on the server, tests each result against published references, explains what is wrong and keeps a signed
+              history per airframe.
             </p>
             <div className="flex flex-wrap gap-3">
               <Link href={viewer ? "/workspaces" : "/sign-up"} className="btn-primary">

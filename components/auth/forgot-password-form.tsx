@@ -12,7 +12,15 @@ export function ForgotPasswordForm() {
   return (
     <form action={action} className="space-y-4" noValidate>
       <FormMessage state={state} />
-      <TextField name="email" type="email" label="E-mail" autoComplete="email" required defaultValue={fieldValue(state, "email")} error={fieldError(state, "email")} />
+      <TextField
+        name="email"
+        type="email"
+        label="E-mail"
+        autoComplete="email"
+        required
+        defaultValue={fieldValue(state, "email")}
+        error={fieldError(state, "email")}
+      />
       <SubmitButton pendingLabel="Sending…">Send me a link</SubmitButton>
     </form>
   );

@@ -13,8 +13,23 @@ export function ResetPasswordForm({ token }: { token: string }) {
     <form action={action} className="space-y-4" noValidate>
       <FormMessage state={state} />
       <input type="hidden" name="token" value={token} />
-      <TextField name="password" type="password" label="New password" autoComplete="new-password" required hint="At least 10 characters, with a digit or a symbol." error={fieldError(state, "password")} />
-      <TextField name="confirm" type="password" label="New password again" autoComplete="new-password" required error={fieldError(state, "confirm")} />
+      <TextField
+        name="password"
+        type="password"
+        label="New password"
+        autoComplete="new-password"
+        required
+        hint="At least 10 characters, with a digit or a symbol."
+        error={fieldError(state, "password")}
+      />
+      <TextField
+        name="confirm"
+        type="password"
+        label="New password again"
+        autoComplete="new-password"
+        required
+        error={fieldError(state, "confirm")}
+      />
       <SubmitButton pendingLabel="Saving…">Save the new password</SubmitButton>
     </form>
   );

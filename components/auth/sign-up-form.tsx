@@ -13,7 +13,14 @@ export function SignUpForm({ invitation, email }: { invitation?: string; email?:
     <form action={action} className="space-y-4" noValidate>
       <FormMessage state={state} />
       {invitation ? <input type="hidden" name="invitation" value={invitation} /> : null}
-      <TextField name="name" label="Your name" autoComplete="name" required defaultValue={fieldValue(state, "name")} error={fieldError(state, "name")} />
+      <TextField
+        name="name"
+        label="Your name"
+        autoComplete="name"
+        required
+        defaultValue={fieldValue(state, "name")}
+        error={fieldError(state, "name")}
+      />
       <TextField
         name="email"
         type="email"

@@ -14,7 +14,14 @@ export function InviteForm({ workspace, roles }: { workspace: string; roles: Rol
     <form action={action} className="space-y-4" noValidate aria-label="Invite someone">
       <input type="hidden" name="workspace" value={workspace} />
       <FormMessage state={state} />
-      <TextField name="email" type="email" label="E-mail" required defaultValue={fieldValue(state, "email")} error={fieldError(state, "email")} />
+      <TextField
+        name="email"
+        type="email"
+        label="E-mail"
+        required
+        defaultValue={fieldValue(state, "email")}
+        error={fieldError(state, "email")}
+      />
       <SelectField
         name="role"
         label="Role"

@@ -50,7 +50,11 @@ export function RemoveMemberButton({ workspace, membershipId, name }: { workspac
       <button type="submit" className="text-xs font-semibold text-halt hover:underline" disabled={pending}>
         Remove
       </button>
-      {state.status === "error" ? <span role="alert" className="ml-2 text-xs text-halt">{state.message}</span> : null}
+      {state.status === "error" ? (
+        <span role="alert" className="ml-2 text-xs text-halt">
+          {state.message}
+        </span>
+      ) : null}
     </form>
   );
 }
@@ -64,7 +68,11 @@ export function RevokeInvitationButton({ workspace, invitationId }: { workspace:
       <button type="submit" className="text-xs font-semibold text-halt hover:underline" disabled={pending}>
         Withdraw
       </button>
-      {state.status === "error" ? <span role="alert" className="ml-2 text-xs text-halt">{state.message}</span> : null}
+      {state.status === "error" ? (
+        <span role="alert" className="ml-2 text-xs text-halt">
+          {state.message}
+        </span>
+      ) : null}
     </form>
   );
 }

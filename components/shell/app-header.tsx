@@ -5,7 +5,11 @@ import type { UserSummary } from "@/lib/data/users";
 import type { WorkspaceSummary } from "@/lib/data/workspaces";
 import { ROLE_LABELS, type Role } from "@/lib/roles";
 
-export function AppHeader({ viewer, workspaces, current }: {
+export function AppHeader({
+  viewer,
+  workspaces,
+  current,
+}: {
   viewer: UserSummary;
   workspaces: (WorkspaceSummary & { role: Role })[];
   current?: string;
@@ -20,7 +24,9 @@ export function AppHeader({ viewer, workspaces, current }: {
         <details className="relative">
           <summary className="btn-quiet cursor-pointer list-none py-1.5" aria-label="Switch workspace">
             {active ? active.name : "Workspaces"}
-            <span aria-hidden className="text-chart-muted">▾</span>
+            <span aria-hidden className="text-chart-muted">
+              ▾
+            </span>
           </summary>
           <div className="card absolute left-0 z-20 mt-2 w-72 p-2">
             <ul className="space-y-1">
@@ -33,13 +39,21 @@ export function AppHeader({ viewer, workspaces, current }: {
                 </li>
               ))}
             </ul>
-            <Link href="/workspaces/new" className="mt-2 block rounded-md px-3 py-2 text-sm font-medium text-lox-600 hover:bg-chart-paper dark:text-lox-300">
+            <Link
+              href="/workspaces/new"
+              className="mt-2 block rounded-md px-3 py-2 text-sm font-medium text-lox-600 hover:bg-chart-paper dark:text-lox-300"
+            >
               + New workspace
             </Link>
           </div>
         </details>
         <div className="ml-auto flex items-center gap-3 text-sm">
-          <Link href="/account/tokens" className="hidden text-chart-muted hover:text-chart-ink sm:inline" data-testid="viewer-name" title="Your account and API tokens">
+          <Link
+            href="/account/tokens"
+            className="hidden text-chart-muted hover:text-chart-ink sm:inline"
+            data-testid="viewer-name"
+            title="Your account and API tokens"
+          >
             {viewer.name}
           </Link>
           <form action={signOutAction}>

@@ -3,7 +3,12 @@
 import { useFormStatus } from "react-dom";
 import type { ReactNode } from "react";
 
-export function SubmitButton({ children, pendingLabel, variant = "primary", className = "" }: {
+export function SubmitButton({
+  children,
+  pendingLabel,
+  variant = "primary",
+  className = "",
+}: {
   children: ReactNode;
   pendingLabel?: string;
   variant?: "primary" | "quiet" | "danger";

@@ -9,7 +9,12 @@ import { FormMessage, fieldError, fieldValue } from "@/components/ui/form-messag
 import { WORKSPACE_KINDS, WORKSPACE_KIND_LABELS } from "@/lib/roles";
 
 function slugify(name: string): string {
-  return name.toLowerCase().normalize("NFKD").replace(/[^a-z0-9]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 48);
+  return name
+    .toLowerCase()
+    .normalize("NFKD")
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 48);
 }
 
 export function CreateWorkspaceForm() {

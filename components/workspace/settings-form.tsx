@@ -15,7 +15,13 @@ export function SettingsForm({ workspace, name, kind }: { workspace: string; nam
       <input type="hidden" name="workspace" value={workspace} />
       <FormMessage state={state} />
       <TextField name="name" label="Name" required defaultValue={name} error={fieldError(state, "name")} />
-      <SelectField name="kind" label="Kind" defaultValue={kind} options={WORKSPACE_KINDS.map((k) => ({ value: k, label: WORKSPACE_KIND_LABELS[k] }))} error={fieldError(state, "kind")} />
+      <SelectField
+        name="kind"
+        label="Kind"
+        defaultValue={kind}
+        options={WORKSPACE_KINDS.map((k) => ({ value: k, label: WORKSPACE_KIND_LABELS[k] }))}
+        error={fieldError(state, "kind")}
+      />
       <SubmitButton pendingLabel="Saving…">Save</SubmitButton>
     </form>
   );

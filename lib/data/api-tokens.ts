@@ -26,7 +26,13 @@ export async function createApiToken(userId: string, name: string): Promise<{ to
 
 export async function listApiTokens(userId: string): Promise<ApiTokenSummary[]> {
   const rows = await db().models.ApiToken.findAll({ where: { userId, revokedAt: null }, order: [["createdAt", "DESC"]] });
-  return rows.map((r) => ({ id: r.id, name: r.name, prefix: r.prefix, lastUsedAt: r.lastUsedAt?.toISOString() ?? null, createdAt: r.createdAt.toISOString() }));
+  return rows.map((r) => ({
+    id: r.id,
+    name: r.name,
+    prefix: r.prefix,
+    lastUsedAt: r.lastUsedAt?.toISOString() ?? null,
+    createdAt: r.createdAt.toISOString(),
+  }));
 }
 
 export async function revokeApiToken(userId: string, id: string): Promise<boolean> {

@@ -16,7 +16,10 @@ export async function listAuditEvents(workspaceId: string, limit = 100): Promise
   const rows = await db().models.AuditEvent.findAll({
     where: { workspaceId },
     include: [{ model: db().models.User, as: "actor", required: false }],
-    order: [["createdAt", "DESC"], ["id", "DESC"]],
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
     limit,
   });
   return rows.map((e) => ({

@@ -59,7 +59,14 @@ export async function inviteMember(input: {
       { transaction },
     );
     await recordAudit(
-      { workspaceId: input.workspaceId, actorId: input.inviterId, action: "member.invited", targetType: "invitation", targetId: created.id, detail: { email: input.email, role: input.role } },
+      {
+        workspaceId: input.workspaceId,
+        actorId: input.inviterId,
+        action: "member.invited",
+        targetType: "invitation",
+        targetId: created.id,
+        detail: { email: input.email, role: input.role },
+      },
       transaction,
     );
     return created;
@@ -87,7 +94,14 @@ export async function revokeInvitation(workspaceId: string, actorId: string, inv
   const invitation = await db().models.Invitation.findOne({ where: { id: invitationId, workspaceId, acceptedAt: null, revokedAt: null } });
   if (!invitation) throw new InvitationError("That invitation is no longer open.");
   await invitation.update({ revokedAt: new Date() });
-  await recordAudit({ workspaceId, actorId, action: "invitation.revoked", targetType: "invitation", targetId: invitation.id, detail: { email: invitation.email } });
+  await recordAudit({
+    workspaceId,
+    actorId,
+    action: "invitation.revoked",
+    targetType: "invitation",
+    targetId: invitation.id,
+    detail: { email: invitation.email },
+  });
 }
 
 async function findByToken(token: string) {
@@ -108,7 +122,13 @@ export async function previewInvitation(token: string): Promise<InvitationPrevie
   const invitation = await findByToken(token);
   if (!invitation) return null;
   const workspace = (invitation as unknown as { workspace: Workspace }).workspace;
-  return { email: invitation.email, role: invitation.role, workspaceName: workspace.name, workspaceSlug: workspace.slug, status: statusOf(invitation) };
+  return {
+    email: invitation.email,
+    role: invitation.role,
+    workspaceName: workspace.name,
+    workspaceSlug: workspace.slug,
+    status: statusOf(invitation),
+  };
 }
 
 /** Accept an open invitation as the signed-in user, whose e-mail must be the one invited. */
@@ -127,7 +147,14 @@ export async function acceptInvitation(token: string, user: { id: string; email:
     if (!existing) await models.Membership.create({ workspaceId: workspace.id, userId: user.id, role: invitation.role }, { transaction });
     await invitation.update({ acceptedAt: new Date(), acceptedById: user.id }, { transaction });
     await recordAudit(
-      { workspaceId: workspace.id, actorId: user.id, action: "member.joined", targetType: "user", targetId: user.id, detail: { role: invitation.role } },
+      {
+        workspaceId: workspace.id,
+        actorId: user.id,
+        action: "member.joined",
+        targetType: "user",
+        targetId: user.id,
+        detail: { role: invitation.role },
+      },
       transaction,
     );
     return { workspaceSlug: workspace.slug };

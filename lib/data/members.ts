@@ -60,7 +60,14 @@ export async function removeMember(workspaceId: string, actorId: string, members
     }
     await membership.destroy({ transaction });
     await recordAudit(
-      { workspaceId, actorId, action: "member.removed", targetType: "user", targetId: membership.userId, detail: { role: membership.role } },
+      {
+        workspaceId,
+        actorId,
+        action: "member.removed",
+        targetType: "user",
+        targetId: membership.userId,
+        detail: { role: membership.role },
+      },
       transaction,
     );
   });

@@ -46,7 +46,10 @@ export async function resetPassword(token: string, password: string): Promise<{ 
     }
     await models.User.update({ passwordHash }, { where: { id: row.userId }, transaction });
     await models.PasswordResetToken.update({ usedAt: new Date() }, { where: { userId: row.userId, usedAt: null }, transaction });
-    await models.SignInAttempt.destroy({ where: { succeeded: false, email: (await models.User.findByPk(row.userId, { transaction, rejectOnEmpty: true })).email }, transaction });
+    await models.SignInAttempt.destroy({
+      where: { succeeded: false, email: (await models.User.findByPk(row.userId, { transaction, rejectOnEmpty: true })).email },
+      transaction,
+    });
     await recordAudit({ actorId: row.userId, action: "password.reset" }, transaction);
     return { userId: row.userId };
   });

@@ -147,7 +147,11 @@ export interface CreateRunInput {
  * Register a run and hand back a presigned URL the file goes to, straight to object storage.
  * Every id in the input must belong to this workspace (and sensors to this vehicle).
  */
-export async function createRun(workspaceId: string, actorId: string, input: CreateRunInput): Promise<{ run: RunSummary; uploadUrl: string }> {
+export async function createRun(
+  workspaceId: string,
+  actorId: string,
+  input: CreateRunInput,
+): Promise<{ run: RunSummary; uploadUrl: string }> {
   const { sequelize, models } = db();
   const vehicle = await models.Vehicle.findOne({ where: { workspaceId, id: input.vehicleId } });
   if (!vehicle) throw new UserFacingError("That vehicle is not in this workspace.", "vehicleId");
@@ -159,7 +163,8 @@ export async function createRun(workspaceId: string, actorId: string, input: Cre
   for (const [slot, sensorId] of Object.entries(input.sensorSlots)) {
     const sensor = sensors.find((s) => s.id === sensorId)!;
     const expected = slot.startsWith("mag") ? "magnetometer" : slot.startsWith("accel") ? "accelerometer" : "gyroscope";
-    if (sensor.kind !== expected) throw new UserFacingError(`Slot ${slot} needs a ${expected}; "${sensor.label}" is a ${sensor.kind}.`, "sensorSlots");
+    if (sensor.kind !== expected)
+      throw new UserFacingError(`Slot ${slot} needs a ${expected}; "${sensor.label}" is a ${sensor.kind}.`, "sensorSlots");
   }
   const safeName = input.fileName.replace(/[^A-Za-z0-9._-]+/g, "_").slice(-120);
   const run = await sequelize.transaction(async (transaction) => {
@@ -189,7 +194,17 @@ export async function createRun(workspaceId: string, actorId: string, input: Cre
     for (const [slot, sensorId] of Object.entries(input.sensorSlots)) {
       await models.RunSensor.create({ runId: created.id, sensorId, slot }, { transaction });
     }
-    await recordAudit({ workspaceId, actorId, action: "run.created", targetType: "run", targetId: created.id, detail: { vehicle: vehicle.name, file: input.fileName } }, transaction);
+    await recordAudit(
+      {
+        workspaceId,
+        actorId,
+        action: "run.created",
+        targetType: "run",
+        targetId: created.id,
+        detail: { vehicle: vehicle.name, file: input.fileName },
+      },
+      transaction,
+    );
     return created;
   });
   const uploadUrl = await presignUpload(run.fileKey, "text/csv");
@@ -206,9 +221,13 @@ export async function markUploaded(workspaceId: string, actorId: string, runId: 
   if (!run) throw new UserFacingError("Run not found.");
   if (run.status !== "awaiting-file") throw new UserFacingError("This run already has its file.");
   const size = await objectSize(run.fileKey);
-  if (size === null) throw new UserFacingError("The file has not arrived in storage yet. Upload it to the URL you were given, then try again.");
+  if (size === null)
+    throw new UserFacingError("The file has not arrived in storage yet. Upload it to the URL you were given, then try again.");
   if (size > UPLOAD_LIMITS.maxBytes) {
-    await run.update({ status: "failed", error: { message: `The file is ${Math.round(size / 1048576)} MB; the limit is ${UPLOAD_LIMITS.maxBytes / 1048576} MB.` } });
+    await run.update({
+      status: "failed",
+      error: { message: `The file is ${Math.round(size / 1048576)} MB; the limit is ${UPLOAD_LIMITS.maxBytes / 1048576} MB.` },
+    });
     throw new UserFacingError("The file is larger than the limit.");
   }
   const version = await sequelize.transaction(async (transaction) => {
@@ -247,8 +266,21 @@ export async function reprocessRun(
       { runId, number: (last ?? 0) + 1, modelChoice: input.model, site, requestedById: actorId },
       { transaction },
     );
-    await run.update({ status: "uploaded", progress: 0, stage: `Queued (version ${created.number})`, error: null, currentVersionId: created.id }, { transaction });
-    await recordAudit({ workspaceId, actorId, action: "run.reprocessed", targetType: "run", targetId: runId, detail: { version: created.number, model: input.model, site: site?.name ?? null } }, transaction);
+    await run.update(
+      { status: "uploaded", progress: 0, stage: `Queued (version ${created.number})`, error: null, currentVersionId: created.id },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        workspaceId,
+        actorId,
+        action: "run.reprocessed",
+        targetType: "run",
+        targetId: runId,
+        detail: { version: created.number, model: input.model, site: site?.name ?? null },
+      },
+      transaction,
+    );
     return created;
   });
   await enqueueVersion(version.id);
@@ -287,7 +319,11 @@ export async function getRunDetail(workspaceId: string, id: string): Promise<Run
 }
 
 /** The results of one version (the current one unless given), or null when not ready. */
-export async function getRunResults(workspaceId: string, runId: string, versionId?: string): Promise<{ version: RunVersionSummary; results: Record<string, unknown> } | null> {
+export async function getRunResults(
+  workspaceId: string,
+  runId: string,
+  versionId?: string,
+): Promise<{ version: RunVersionSummary; results: Record<string, unknown> } | null> {
   const { models } = db();
   const run = await models.Run.findOne({ where: { workspaceId, id: runId }, attributes: ["id", "currentVersionId"] });
   if (!run) return null;
@@ -296,7 +332,10 @@ export async function getRunResults(workspaceId: string, runId: string, versionI
   return { version: toVersion(version), results: version.results };
 }
 
-export async function getRunFileKeys(workspaceId: string, runId: string): Promise<{ fileKey: string; fileName: string; samplesKey: string | null } | null> {
+export async function getRunFileKeys(
+  workspaceId: string,
+  runId: string,
+): Promise<{ fileKey: string; fileName: string; samplesKey: string | null } | null> {
   const { models } = db();
   const run = await models.Run.findOne({ where: { workspaceId, id: runId } });
   if (!run || run.status === "awaiting-file") return null;
@@ -314,7 +353,10 @@ export async function deleteRun(workspaceId: string, actorId: string, runId: str
 }
 
 /** Who uploaded a run, for the builder's "own runs only" rule. */
-export async function runOwnership(workspaceId: string, runId: string): Promise<{ createdById: string | null; sharedWithStudents: boolean } | null> {
+export async function runOwnership(
+  workspaceId: string,
+  runId: string,
+): Promise<{ createdById: string | null; sharedWithStudents: boolean } | null> {
   const run = await db().models.Run.findOne({ where: { workspaceId, id: runId }, attributes: ["uploadedById", "sharedWithStudents"] });
   return run ? { createdById: run.uploadedById, sharedWithStudents: run.sharedWithStudents } : null;
 }
@@ -331,7 +373,11 @@ const SORT_COLUMNS: Record<RunListQuery["sort"], string> = {
 };
 
 /** Runs of a workspace, filtered, sorted and paged in SQL. Students see only shared runs. */
-export async function listRuns(workspaceId: string, query: RunListQuery, options: { sharedOnly?: boolean } = {}): Promise<{ items: RunSummary[]; total: number }> {
+export async function listRuns(
+  workspaceId: string,
+  query: RunListQuery,
+  options: { sharedOnly?: boolean } = {},
+): Promise<{ items: RunSummary[]; total: number }> {
   const { models, sequelize } = db();
   const where: WhereOptions<Run> = { workspaceId };
   const and: WhereOptions<Run>[] = [];
@@ -342,10 +388,17 @@ export async function listRuns(workspaceId: string, query: RunListQuery, options
   if (query.uploaderId) and.push({ uploadedById: query.uploaderId });
   if (query.from) and.push({ capturedOn: { [Op.gte]: query.from } });
   if (query.to) and.push({ capturedOn: { [Op.lte]: query.to } });
-  if (query.sensorId) and.push(sequelize.literal(`EXISTS (SELECT 1 FROM run_sensors rs WHERE rs.run_id = "Run".id AND rs.sensor_id = ${sequelize.escape(query.sensorId)})`) as unknown as WhereOptions<Run>);
+  if (query.sensorId)
+    and.push(
+      sequelize.literal(
+        `EXISTS (SELECT 1 FROM run_sensors rs WHERE rs.run_id = "Run".id AND rs.sensor_id = ${sequelize.escape(query.sensorId)})`,
+      ) as unknown as WhereOptions<Run>,
+    );
   if (query.search) {
     const like = `%${query.search.replace(/[%_\\]/g, "\\$&")}%`;
-    and.push({ [Op.or]: [{ title: { [Op.iLike]: like } }, { fileName: { [Op.iLike]: like } }, { "$vehicle.name$": { [Op.iLike]: like } }] } as WhereOptions<Run>);
+    and.push({
+      [Op.or]: [{ title: { [Op.iLike]: like } }, { fileName: { [Op.iLike]: like } }, { "$vehicle.name$": { [Op.iLike]: like } }],
+    } as WhereOptions<Run>);
   }
   if (and.length) Object.assign(where, { [Op.and]: and });
   const direction = query.order === "asc" ? "ASC NULLS LAST" : "DESC NULLS LAST";

@@ -27,7 +27,16 @@ export interface SensorInput {
 }
 
 function toSummary(s: Sensor): SensorSummary {
-  return { id: s.id, vehicleId: s.vehicleId, kind: s.kind, label: s.label, placement: s.placement, mountingRotation: s.mountingRotation, units: s.units, columnHints: s.columnHints };
+  return {
+    id: s.id,
+    vehicleId: s.vehicleId,
+    kind: s.kind,
+    label: s.label,
+    placement: s.placement,
+    mountingRotation: s.mountingRotation,
+    units: s.units,
+    columnHints: s.columnHints,
+  };
 }
 
 const KIND_ORDER: Record<SensorKind, number> = { magnetometer: 0, accelerometer: 1, gyroscope: 2 };
@@ -43,7 +52,8 @@ export async function getSensor(workspaceId: string, id: string): Promise<Sensor
 }
 
 function duplicateLabel(error: unknown): never {
-  if (error instanceof UniqueConstraintError) throw new UserFacingError("This vehicle already has a sensor of that kind with this label.", "label");
+  if (error instanceof UniqueConstraintError)
+    throw new UserFacingError("This vehicle already has a sensor of that kind with this label.", "label");
   throw error;
 }
 
@@ -54,7 +64,14 @@ export async function createSensor(workspaceId: string, actorId: string, vehicle
   } catch (error) {
     duplicateLabel(error);
   }
-  await recordAudit({ workspaceId, actorId, action: "sensor.added", targetType: "sensor", targetId: sensor.id, detail: { label: sensor.label, kind: sensor.kind, vehicleId } });
+  await recordAudit({
+    workspaceId,
+    actorId,
+    action: "sensor.added",
+    targetType: "sensor",
+    targetId: sensor.id,
+    detail: { label: sensor.label, kind: sensor.kind, vehicleId },
+  });
   return toSummary(sensor);
 }
 
@@ -73,7 +90,10 @@ export async function updateSensor(workspaceId: string, actorId: string, id: str
     action: "sensor.updated",
     targetType: "sensor",
     targetId: id,
-    detail: { label: sensor.label, ...(before !== input.mountingRotation ? { mountingFrom: before, mountingTo: input.mountingRotation } : {}) },
+    detail: {
+      label: sensor.label,
+      ...(before !== input.mountingRotation ? { mountingFrom: before, mountingTo: input.mountingRotation } : {}),
+    },
   });
   return toSummary(sensor);
 }

@@ -51,9 +51,7 @@ export async function getUserByEmail(email: string): Promise<UserSummary | null>
 export const SIGN_IN_LIMITS = { windowMinutes: 15, perAccount: 5, perAddress: 20 };
 
 export type SignInResult =
-  | { ok: true; user: UserSummary }
-  | { ok: false; reason: "invalid" }
-  | { ok: false; reason: "rate-limited"; retryAfterMinutes: number };
+  { ok: true; user: UserSummary } | { ok: false; reason: "invalid" } | { ok: false; reason: "rate-limited"; retryAfterMinutes: number };
 
 /**
  * Check e-mail and password, with a limit on recent failures per account and per address.

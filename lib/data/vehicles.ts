@@ -55,7 +55,13 @@ function toSummary(v: Vehicle): VehicleSummary {
   };
 }
 
-const SORTABLE = { name: "name", kind: "kind", createdAt: "created_at", lastCapturedOn: "last_captured_on", runCount: "run_count" } as const;
+const SORTABLE = {
+  name: "name",
+  kind: "kind",
+  createdAt: "created_at",
+  lastCapturedOn: "last_captured_on",
+  runCount: "run_count",
+} as const;
 export type VehicleSort = keyof typeof SORTABLE;
 
 export interface VehicleQuery {
@@ -76,7 +82,14 @@ export async function listVehicles(workspaceId: string, query: VehicleQuery = {}
   if (query.kind) Object.assign(where, { kind: query.kind });
   if (query.search) {
     const like = `%${query.search.replace(/[%_\\]/g, "\\$&")}%`;
-    Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: like } }, { serialTag: { [Op.iLike]: like } }, { customer: { [Op.iLike]: like } }, { airframe: { [Op.iLike]: like } }] });
+    Object.assign(where, {
+      [Op.or]: [
+        { name: { [Op.iLike]: like } },
+        { serialTag: { [Op.iLike]: like } },
+        { customer: { [Op.iLike]: like } },
+        { airframe: { [Op.iLike]: like } },
+      ],
+    });
   }
   const pageSize = Math.min(Math.max(query.pageSize ?? 25, 1), 100);
   const page = Math.max(query.page ?? 1, 1);
@@ -92,12 +105,22 @@ export async function listVehicles(workspaceId: string, query: VehicleQuery = {}
         [literal(`(SELECT count(*) FROM runs r WHERE r.vehicle_id = "Vehicle".id AND r.deleted_at IS NULL)`), "runCount"],
         [literal(`(SELECT max(r.captured_on) FROM runs r WHERE r.vehicle_id = "Vehicle".id AND r.deleted_at IS NULL)`), "lastCapturedOn"],
         [
-          literal(`(SELECT r.verdict FROM runs r WHERE r.vehicle_id = "Vehicle".id AND r.deleted_at IS NULL AND r.status = 'done' ORDER BY r.captured_on DESC, r.created_at DESC LIMIT 1)`),
+          literal(
+            `(SELECT r.verdict FROM runs r WHERE r.vehicle_id = "Vehicle".id AND r.deleted_at IS NULL AND r.status = 'done' ORDER BY r.captured_on DESC, r.created_at DESC LIMIT 1)`,
+          ),
           "lastVerdict",
         ],
       ],
     },
-    order: [[literal(sortColumn === "last_captured_on" ? `"lastCapturedOn"` : sortColumn === "run_count" ? `"runCount"` : `"Vehicle".${sortColumn}`), `${direction} NULLS LAST`], ["id", "ASC"]],
+    order: [
+      [
+        literal(
+          sortColumn === "last_captured_on" ? `"lastCapturedOn"` : sortColumn === "run_count" ? `"runCount"` : `"Vehicle".${sortColumn}`,
+        ),
+        `${direction} NULLS LAST`,
+      ],
+      ["id", "ASC"],
+    ],
     limit: pageSize,
     offset: (page - 1) * pageSize,
   });
@@ -127,7 +150,8 @@ async function listVehiclesByIds(workspaceId: string, ids: string[]) {
 }
 
 function uniqueName(error: unknown): never {
-  if (error instanceof UniqueConstraintError) throw new UserFacingError("A vehicle with this name already exists in the workspace.", "name");
+  if (error instanceof UniqueConstraintError)
+    throw new UserFacingError("A vehicle with this name already exists in the workspace.", "name");
   throw error;
 }
 
@@ -138,7 +162,14 @@ export async function createVehicle(workspaceId: string, actorId: string, input:
   } catch (error) {
     uniqueName(error);
   }
-  await recordAudit({ workspaceId, actorId, action: "vehicle.created", targetType: "vehicle", targetId: vehicle.id, detail: { name: vehicle.name } });
+  await recordAudit({
+    workspaceId,
+    actorId,
+    action: "vehicle.created",
+    targetType: "vehicle",
+    targetId: vehicle.id,
+    detail: { name: vehicle.name },
+  });
   return (await getVehicle(workspaceId, vehicle.id))!;
 }
 
@@ -150,7 +181,14 @@ export async function updateVehicle(workspaceId: string, actorId: string, id: st
   } catch (error) {
     uniqueName(error);
   }
-  await recordAudit({ workspaceId, actorId, action: input.archived ? "vehicle.archived" : "vehicle.updated", targetType: "vehicle", targetId: id, detail: { name: vehicle.name } });
+  await recordAudit({
+    workspaceId,
+    actorId,
+    action: input.archived ? "vehicle.archived" : "vehicle.updated",
+    targetType: "vehicle",
+    targetId: id,
+    detail: { name: vehicle.name },
+  });
   return getVehicle(workspaceId, id);
 }
 

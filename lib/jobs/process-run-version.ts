@@ -86,7 +86,8 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       maxColumns: UPLOAD_LIMITS.maxColumns,
     });
   } catch (error) {
-    if (error instanceof IngestError) return fail(versionId, { message: error.message, row: error.row ?? undefined, column: error.column ?? undefined });
+    if (error instanceof IngestError)
+      return fail(versionId, { message: error.message, row: error.row ?? undefined, column: error.column ?? undefined });
     throw error;
   }
   await hooks.afterParse?.();
@@ -126,14 +127,22 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
   const offsetNorm = first?.offset ? Math.hypot(...first.offset) : null;
   const results = toJsonSafe({
     ...analysis,
-    samples: { key: samplesKey, fields: table.fields, length: table.length, layout: "float32 little-endian, column-major, fields in order" },
+    samples: {
+      key: samplesKey,
+      fields: table.fields,
+      length: table.length,
+      layout: "float32 little-endian, column-major, fields in order",
+    },
     file: { delimiter: ingested.delimiter, ignoredColumns: ingested.ignoredColumns, recognition: ingested.recognition },
   }) as Record<string, unknown>;
 
   const outcome = await sequelize.transaction(async (transaction) => {
     const fresh = await models.RunVersion.findByPk(versionId, { transaction, lock: true });
     if (!fresh || fresh.status === "done") return "skipped" as const;
-    await fresh.update({ status: "done", results, samplesKey, verdict: analysis.verdict, error: null, finishedAt: new Date() }, { transaction });
+    await fresh.update(
+      { status: "done", results, samplesKey, verdict: analysis.verdict, error: null, finishedAt: new Date() },
+      { transaction },
+    );
     const current = await models.Run.findByPk(run.id, { transaction, lock: true, paranoid: false });
     if (current && current.currentVersionId === versionId) {
       await current.update(

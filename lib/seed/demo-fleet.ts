@@ -19,9 +19,27 @@ import { putObject } from "@/lib/storage";
  * steel nearby, strong current coupling, and a wobbly accelerometer hold.
  */
 const SITES = [
-  { name: "Quillmere strip", latitudeDeg: 54.62, longitudeDeg: -2.91, altitudeM: 212, notes: "Grass strip, north end, 40 m from the hangar." },
-  { name: "Tarn jetty", latitudeDeg: 57.08, longitudeDeg: -5.62, altitudeM: 6, notes: "Timber jetty; keep clear of the steel bollards at the far end." },
-  { name: "Saltmarsh depot", latitudeDeg: 52.96, longitudeDeg: 0.84, altitudeM: 3, notes: "Concrete yard with rebar: calibrate on the grass beyond the fence." },
+  {
+    name: "Quillmere strip",
+    latitudeDeg: 54.62,
+    longitudeDeg: -2.91,
+    altitudeM: 212,
+    notes: "Grass strip, north end, 40 m from the hangar.",
+  },
+  {
+    name: "Tarn jetty",
+    latitudeDeg: 57.08,
+    longitudeDeg: -5.62,
+    altitudeM: 6,
+    notes: "Timber jetty; keep clear of the steel bollards at the far end.",
+  },
+  {
+    name: "Saltmarsh depot",
+    latitudeDeg: 52.96,
+    longitudeDeg: 0.84,
+    altitudeM: 3,
+    notes: "Concrete yard with rebar: calibrate on the grass beyond the fence.",
+  },
 ];
 
 const mag = (label: string, placement: "internal" | "external", mountingRotation = "none", columnHints: string[] = []): SensorInput => ({
@@ -32,28 +50,77 @@ const mag = (label: string, placement: "internal" | "external", mountingRotation
   units: "uT",
   columnHints,
 });
-const accel: SensorInput = { kind: "accelerometer", label: "board IMU", placement: "internal", mountingRotation: "none", units: "m/s2", columnHints: [] };
-const gyro: SensorInput = { kind: "gyroscope", label: "board IMU", placement: "internal", mountingRotation: "none", units: "rad/s", columnHints: [] };
+const accel: SensorInput = {
+  kind: "accelerometer",
+  label: "board IMU",
+  placement: "internal",
+  mountingRotation: "none",
+  units: "m/s2",
+  columnHints: [],
+};
+const gyro: SensorInput = {
+  kind: "gyroscope",
+  label: "board IMU",
+  placement: "internal",
+  mountingRotation: "none",
+  units: "rad/s",
+  columnHints: [],
+};
 
 const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
   {
-    vehicle: { name: "Heron 1", kind: "multirotor", airframe: "Quad, 550 mm carbon arms, mast GNSS", serialTag: "QSC-H1", customer: "Quillmere Survey", notes: "Primary mapping quad." },
+    vehicle: {
+      name: "Heron 1",
+      kind: "multirotor",
+      airframe: "Quad, 550 mm carbon arms, mast GNSS",
+      serialTag: "QSC-H1",
+      customer: "Quillmere Survey",
+      notes: "Primary mapping quad.",
+    },
     sensors: [mag("board", "internal"), mag("mast module", "external"), accel, gyro],
   },
   {
-    vehicle: { name: "Heron 2", kind: "multirotor", airframe: "Quad, 550 mm carbon arms, mast GNSS", serialTag: "QSC-H2", customer: "Quillmere Survey", notes: "" },
+    vehicle: {
+      name: "Heron 2",
+      kind: "multirotor",
+      airframe: "Quad, 550 mm carbon arms, mast GNSS",
+      serialTag: "QSC-H2",
+      customer: "Quillmere Survey",
+      notes: "",
+    },
     sensors: [mag("board", "internal"), accel, gyro],
   },
   {
-    vehicle: { name: "Skylark", kind: "vtol", airframe: "Tilt-rotor VTOL, 2.1 m span", serialTag: "QSC-SK", customer: "Quillmere Survey", notes: "Mast module refitted after a hard landing." },
+    vehicle: {
+      name: "Skylark",
+      kind: "vtol",
+      airframe: "Tilt-rotor VTOL, 2.1 m span",
+      serialTag: "QSC-SK",
+      customer: "Quillmere Survey",
+      notes: "Mast module refitted after a hard landing.",
+    },
     sensors: [mag("board", "internal"), mag("mast module", "external"), accel, gyro],
   },
   {
-    vehicle: { name: "Marsh rover", kind: "rover", airframe: "Four-wheel skid-steer, aluminium chassis", serialTag: "QSC-MR", customer: "Saltmarsh works", notes: "" },
+    vehicle: {
+      name: "Marsh rover",
+      kind: "rover",
+      airframe: "Four-wheel skid-steer, aluminium chassis",
+      serialTag: "QSC-MR",
+      customer: "Saltmarsh works",
+      notes: "",
+    },
     sensors: [mag("board", "internal"), accel, gyro],
   },
   {
-    vehicle: { name: "Kelp", kind: "boat", airframe: "Survey catamaran, 1.4 m", serialTag: "QSC-KB", customer: "Tarn harbour trust", notes: "" },
+    vehicle: {
+      name: "Kelp",
+      kind: "boat",
+      airframe: "Survey catamaran, 1.4 m",
+      serialTag: "QSC-KB",
+      customer: "Tarn harbour trust",
+      notes: "",
+    },
     sensors: [mag("mast module", "external"), accel, gyro],
   },
 ];
@@ -78,8 +145,17 @@ const RUNS: DemoRun[] = [
     site: "Quillmere strip",
     capturedOn: "2026-09-14",
     title: "Annual check: both compasses",
-    slots: { mag0: "magnetometer:board", mag1: "magnetometer:mast module", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
-    spec: { seed: 101, holds: { faces: [...SIX] }, magnetometers: [{ hardIronOffset: [14, -6, 22], softIron: "mild" }, { hardIronOffset: [-3, 5, 2] }] },
+    slots: {
+      mag0: "magnetometer:board",
+      mag1: "magnetometer:mast module",
+      accel0: "accelerometer:board IMU",
+      gyro0: "gyroscope:board IMU",
+    },
+    spec: {
+      seed: 101,
+      holds: { faces: [...SIX] },
+      magnetometers: [{ hardIronOffset: [14, -6, 22], softIron: "mild" }, { hardIronOffset: [-3, 5, 2] }],
+    },
     sharedWithStudents: true,
   },
   {
@@ -96,9 +172,17 @@ const RUNS: DemoRun[] = [
     site: "Quillmere strip",
     capturedOn: "2026-10-19",
     title: "After mast refit",
-    slots: { mag0: "magnetometer:board", mag1: "magnetometer:mast module", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    slots: {
+      mag0: "magnetometer:board",
+      mag1: "magnetometer:mast module",
+      accel0: "accelerometer:board IMU",
+      gyro0: "gyroscope:board IMU",
+    },
     // The refitted module sits turned 90° in yaw; it is still declared as not rotated.
-    spec: { seed: 103, magnetometers: [{ hardIronOffset: [5, -9, 12] }, { mountingRotation: rotation("yaw 90"), declaredRotation: rotation("none") }] },
+    spec: {
+      seed: 103,
+      magnetometers: [{ hardIronOffset: [5, -9, 12] }, { mountingRotation: rotation("yaw 90"), declaredRotation: rotation("none") }],
+    },
     sharedWithStudents: true,
   },
   {
@@ -115,7 +199,13 @@ const RUNS: DemoRun[] = [
     capturedOn: "2026-10-30",
     title: "Motor current test (props off, restrained)",
     slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
-    spec: { seed: 105, holds: { faces: ["+z"] }, pathSeconds: 50, magnetometers: [{ hardIronOffset: [14, -6, 22], currentCoupling: [0.32, 0.12, -0.26] }], currentTest: { maxAmps: 38 } },
+    spec: {
+      seed: 105,
+      holds: { faces: ["+z"] },
+      pathSeconds: 50,
+      magnetometers: [{ hardIronOffset: [14, -6, 22], currentCoupling: [0.32, 0.12, -0.26] }],
+      currentTest: { maxAmps: 38 },
+    },
     powersMotors: true,
   },
   {
@@ -124,7 +214,12 @@ const RUNS: DemoRun[] = [
     capturedOn: "2026-11-06",
     title: "Six-face hold, shaky hands",
     slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
-    spec: { seed: 106, holds: { faces: [...SIX], wobbleDeg: 0.8, holdSeconds: 5 }, pathSeconds: 40, accelerometer: { offset: [0.12, -0.08, 0.2], scale: [1.01, 0.99, 1.02] } },
+    spec: {
+      seed: 106,
+      holds: { faces: [...SIX], wobbleDeg: 0.8, holdSeconds: 5 },
+      pathSeconds: 40,
+      accelerometer: { offset: [0.12, -0.08, 0.2], scale: [1.01, 0.99, 1.02] },
+    },
   },
   {
     vehicle: "Kelp",
@@ -146,7 +241,8 @@ export async function seedDemoFleet(workspaceId: string, actorId: string, log: (
   for (const { vehicle, sensors } of VEHICLES) {
     const created = await createVehicle(workspaceId, actorId, vehicle);
     vehicleIds.set(vehicle.name, created.id);
-    for (const sensor of sensors) sensorIds.set(`${vehicle.name}/${sensor.kind}:${sensor.label}`, (await createSensor(workspaceId, actorId, created.id, sensor)).id);
+    for (const sensor of sensors)
+      sensorIds.set(`${vehicle.name}/${sensor.kind}:${sensor.label}`, (await createSensor(workspaceId, actorId, created.id, sensor)).id);
   }
   for (const demo of RUNS) {
     const site = sites.get(demo.site)!;

@@ -17,10 +17,30 @@ export const DEMO_WORKSPACES: { slug: string; name: string; kind: WorkspaceKind 
 ];
 
 export const DEMO_PEOPLE: DemoPerson[] = [
-  { name: "Odile Marchetti", email: "odile@quillmere.example", password: "lox-owner-2026", memberships: [{ workspace: "quillmere-survey", role: "owner" }] },
-  { name: "Tomasz Whitlock", email: "tomasz@quillmere.example", password: "lox-tech-2026", memberships: [{ workspace: "quillmere-survey", role: "technician" }] },
-  { name: "Aiyana Corrow", email: "aiyana@quillmere.example", password: "lox-tech2-2026", memberships: [{ workspace: "quillmere-survey", role: "technician" }] },
-  { name: "Priya Lindqvist", email: "priya@quillmere.example", password: "lox-build-2026", memberships: [{ workspace: "quillmere-survey", role: "builder" }] },
+  {
+    name: "Odile Marchetti",
+    email: "odile@quillmere.example",
+    password: "lox-owner-2026",
+    memberships: [{ workspace: "quillmere-survey", role: "owner" }],
+  },
+  {
+    name: "Tomasz Whitlock",
+    email: "tomasz@quillmere.example",
+    password: "lox-tech-2026",
+    memberships: [{ workspace: "quillmere-survey", role: "technician" }],
+  },
+  {
+    name: "Aiyana Corrow",
+    email: "aiyana@quillmere.example",
+    password: "lox-tech2-2026",
+    memberships: [{ workspace: "quillmere-survey", role: "technician" }],
+  },
+  {
+    name: "Priya Lindqvist",
+    email: "priya@quillmere.example",
+    password: "lox-build-2026",
+    memberships: [{ workspace: "quillmere-survey", role: "builder" }],
+  },
   {
     name: "Hamish Oduya",
     email: "hamish@brackenfold.example",
@@ -45,5 +65,10 @@ export const DEMO_PEOPLE: DemoPerson[] = [
       { workspace: "quillmere-survey", role: "student" },
     ],
   },
-  { name: "Mele Tavita", email: "mele@brackenfold.example", password: "lox-student2-2026", memberships: [{ workspace: "brackenfold-school", role: "student" }] },
+  {
+    name: "Mele Tavita",
+    email: "mele@brackenfold.example",
+    password: "lox-student2-2026",
+    memberships: [{ workspace: "brackenfold-school", role: "student" }],
+  },
 ];

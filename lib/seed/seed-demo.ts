@@ -20,13 +20,27 @@ export async function seedDemo(log: (line: string) => void = () => {}): Promise<
     for (const person of DEMO_PEOPLE) {
       const user =
         (await models.User.findOne({ where: { email: person.email }, transaction })) ??
-        (await models.User.create({ name: person.name, email: person.email, passwordHash: await hashPassword(person.password) }, { transaction }));
+        (await models.User.create(
+          { name: person.name, email: person.email, passwordHash: await hashPassword(person.password) },
+          { transaction },
+        ));
       for (const m of person.memberships) {
         await models.Membership.create({ workspaceId: workspaces.get(m.workspace)!, userId: user.id, role: m.role }, { transaction });
       }
     }
     for (const [slug, id] of workspaces) {
-      await models.AuditEvent.create({ workspaceId: id, actorId: null, action: "workspace.created", targetType: "workspace", targetId: id, detail: { seeded: true, slug }, ipAddress: null }, { transaction });
+      await models.AuditEvent.create(
+        {
+          workspaceId: id,
+          actorId: null,
+          action: "workspace.created",
+          targetType: "workspace",
+          targetId: id,
+          detail: { seeded: true, slug },
+          ipAddress: null,
+        },
+        { transaction },
+      );
     }
   });
   log(`created ${DEMO_WORKSPACES.length} demo workspaces and ${DEMO_PEOPLE.length} people`);
@@ -38,12 +52,16 @@ export async function seedDemo(log: (line: string) => void = () => {}): Promise<
 /** The operator's fleet and simulated runs, made by the demo technician; skipped once present. */
 async function seedFleetOf(workspaceId: string, log: (line: string) => void): Promise<void> {
   const { models } = db();
-  const technician = await models.User.findOne({ where: { email: DEMO_PEOPLE.find((p) => p.memberships.some((m) => m.role === "technician"))!.email } });
+  const technician = await models.User.findOne({
+    where: { email: DEMO_PEOPLE.find((p) => p.memberships.some((m) => m.role === "technician"))!.email },
+  });
   const { seedDemoFleet } = await import("@/lib/seed/demo-fleet");
   await seedDemoFleet(workspaceId, technician!.id, log);
 }
 
 export function demoCredentialsTable(): string {
-  const rows = DEMO_PEOPLE.map((p) => `  ${p.email.padEnd(28)} ${p.password.padEnd(20)} ${p.memberships.map((m) => `${m.role}@${m.workspace}`).join(", ")}`);
+  const rows = DEMO_PEOPLE.map(
+    (p) => `  ${p.email.padEnd(28)} ${p.password.padEnd(20)} ${p.memberships.map((m) => `${m.role}@${m.workspace}`).join(", ")}`,
+  );
   return ["  e-mail                       password             role@workspace", ...rows].join("\n");
 }

@@ -14,11 +14,7 @@ export const newPasswordSchema = z
   .max(200, "Use at most 200 characters.")
   .refine((value) => /[^A-Za-z]/.test(value), "Add at least one digit or symbol.");
 
-export const nameSchema = z
-  .string({ error: "Enter your name." })
-  .trim()
-  .min(1, "Enter your name.")
-  .max(120, "Use at most 120 characters.");
+export const nameSchema = z.string({ error: "Enter your name." }).trim().min(1, "Enter your name.").max(120, "Use at most 120 characters.");
 
 export const signUpSchema = z.object({
   name: nameSchema,

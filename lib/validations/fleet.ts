@@ -44,7 +44,15 @@ export const sensorSchema = z
     mountingRotation: z.enum(ROTATION_NAMES, { error: "Choose one of the standard mounting rotations." }).default("none"),
     units: z.enum(ALL_UNITS, { error: "Choose the units the sensor logs in." }),
     columnHints: z
-      .union([z.array(text(80, "Column")), z.string().transform((s) => s.split(",").map((c) => c.trim()).filter(Boolean))])
+      .union([
+        z.array(text(80, "Column")),
+        z.string().transform((s) =>
+          s
+            .split(",")
+            .map((c) => c.trim())
+            .filter(Boolean),
+        ),
+      ])
       .default([]),
   })
   .refine(

@@ -7,52 +7,60 @@ function unitText(kind: QuantityKind) {
     .string()
     .trim()
     .max(40)
-    .refine((text) => parseUnitForKind(text, kind) !== null, `"${kind}" unit not recognised (for example uT, m/s2, deg/s, ms, counts:0.15).`)
+    .refine(
+      (text) => parseUnitForKind(text, kind) !== null,
+      `"${kind}" unit not recognised (for example uT, m/s2, deg/s, ms, counts:0.15).`,
+    )
     .optional();
 }
 
 const FIELD_PATTERN = /^(time|current|throttle|ignore|(mag|accel|gyro)\d\.[xyz])$/;
 
-export const createRunSchema = z.object({
-  vehicleId: z.uuid({ error: "Choose a vehicle." }),
-  siteId: z.uuid({ error: "Choose a site." }).nullable().optional(),
-  capturedOn: z.iso.date({ error: "Give the capture date as YYYY-MM-DD." }),
-  title: z.string().trim().max(160, "Title: use at most 160 characters.").optional().default(""),
-  fileName: z
-    .string()
-    .trim()
-    .min(1, "The file needs a name.")
-    .max(255)
-    .refine((n) => /\.(csv|tsv|txt)$/i.test(n), "Upload a .csv, .tsv or .txt file."),
-  fileSize: z
-    .number({ error: "fileSize must be a number of bytes." })
-    .int()
-    .positive("The file is empty.")
-    .max(UPLOAD_LIMITS.maxBytes, `The file is larger than ${UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB.`),
-  /** CSV column → canonical field; columns not listed are recognised from their names. */
-  columnMapping: z
-    .record(z.string().max(120), z.string().regex(FIELD_PATTERN, "Map columns to time, current, throttle, ignore or a sensor axis such as mag0.x."))
-    .default({}),
-  /** Units per quantity as written by the logger: "uT", "nT", "mG", "G", "m/s2", "g", "deg/s", "rad/s", "ms", or "counts:0.15". */
-  units: z
-    .object({
-      magnetic: unitText("magnetic"),
-      acceleration: unitText("acceleration"),
-      rate: unitText("rate"),
-      time: unitText("time"),
-      current: unitText("current"),
-    })
-    .default({}),
-  /** Capture slot ("mag0", "accel0", …) → the vehicle's sensor logged in it. */
-  sensorSlots: z.record(z.string().regex(/^(mag|accel|gyro)\d$/, "Slots are named like mag0, accel0, gyro0."), z.uuid()).default({}),
-  model: z.enum(MODEL_CHOICES).default("auto"),
-  powersMotors: z.boolean().default(false),
-  /** Required when the capture powers motors: the person confirmed the cautions. */
-  safetyAcknowledged: z.boolean().default(false),
-}).refine((r) => !r.powersMotors || r.safetyAcknowledged, {
-  path: ["safetyAcknowledged"],
-  message: "This capture powers motors: confirm the safety cautions first.",
-});
+export const createRunSchema = z
+  .object({
+    vehicleId: z.uuid({ error: "Choose a vehicle." }),
+    siteId: z.uuid({ error: "Choose a site." }).nullable().optional(),
+    capturedOn: z.iso.date({ error: "Give the capture date as YYYY-MM-DD." }),
+    title: z.string().trim().max(160, "Title: use at most 160 characters.").optional().default(""),
+    fileName: z
+      .string()
+      .trim()
+      .min(1, "The file needs a name.")
+      .max(255)
+      .refine((n) => /\.(csv|tsv|txt)$/i.test(n), "Upload a .csv, .tsv or .txt file."),
+    fileSize: z
+      .number({ error: "fileSize must be a number of bytes." })
+      .int()
+      .positive("The file is empty.")
+      .max(UPLOAD_LIMITS.maxBytes, `The file is larger than ${UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB.`),
+    /** CSV column → canonical field; columns not listed are recognised from their names. */
+    columnMapping: z
+      .record(
+        z.string().max(120),
+        z.string().regex(FIELD_PATTERN, "Map columns to time, current, throttle, ignore or a sensor axis such as mag0.x."),
+      )
+      .default({}),
+    /** Units per quantity as written by the logger: "uT", "nT", "mG", "G", "m/s2", "g", "deg/s", "rad/s", "ms", or "counts:0.15". */
+    units: z
+      .object({
+        magnetic: unitText("magnetic"),
+        acceleration: unitText("acceleration"),
+        rate: unitText("rate"),
+        time: unitText("time"),
+        current: unitText("current"),
+      })
+      .default({}),
+    /** Capture slot ("mag0", "accel0", …) → the vehicle's sensor logged in it. */
+    sensorSlots: z.record(z.string().regex(/^(mag|accel|gyro)\d$/, "Slots are named like mag0, accel0, gyro0."), z.uuid()).default({}),
+    model: z.enum(MODEL_CHOICES).default("auto"),
+    powersMotors: z.boolean().default(false),
+    /** Required when the capture powers motors: the person confirmed the cautions. */
+    safetyAcknowledged: z.boolean().default(false),
+  })
+  .refine((r) => !r.powersMotors || r.safetyAcknowledged, {
+    path: ["safetyAcknowledged"],
+    message: "This capture powers motors: confirm the safety cautions first.",
+  });
 
 export const reprocessSchema = z.object({
   model: z.enum(MODEL_CHOICES).default("auto"),
@@ -68,7 +76,9 @@ export const runListQuerySchema = z.object({
   from: z.iso.date().optional(),
   to: z.iso.date().optional(),
   search: z.string().max(120).optional(),
-  sort: z.enum(["capturedOn", "createdAt", "verdict", "coverageFraction", "residualRms", "fieldStrength", "offsetNorm", "vehicle"]).default("capturedOn"),
+  sort: z
+    .enum(["capturedOn", "createdAt", "verdict", "coverageFraction", "residualRms", "fieldStrength", "offsetNorm", "vehicle"])
+    .default("capturedOn"),
   order: z.enum(["asc", "desc"]).default("desc"),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),

@@ -74,7 +74,9 @@ describe("sign in", () => {
     expect(await redirectOf(() => signInAction(idle, form({ email: user.email, password: TEST_PASSWORD, next: "/w/x" })))).toBe("/w/x");
     expect(fakeRequest().userId).toBe(user.id);
     actAs(null);
-    expect(await redirectOf(() => signInAction(idle, form({ email: user.email, password: TEST_PASSWORD, next: "//evil.example" })))).toBe("/workspaces");
+    expect(await redirectOf(() => signInAction(idle, form({ email: user.email, password: TEST_PASSWORD, next: "//evil.example" })))).toBe(
+      "/workspaces",
+    );
   });
 
   test("wrong password and unknown e-mail get the very same message", async () => {
@@ -131,7 +133,9 @@ describe("password reset by e-mail", () => {
     const mismatch = await resetPasswordAction(idle, form({ token, password: "brand-new-pass-7", confirm: "other-pass-7" }));
     expect(mismatch).toMatchObject({ status: "error", fieldErrors: { confirm: expect.any(String) } });
 
-    expect(await redirectOf(() => resetPasswordAction(idle, form({ token, password: "brand-new-pass-7", confirm: "brand-new-pass-7" })))).toBe("/sign-in?reset=1");
+    expect(
+      await redirectOf(() => resetPasswordAction(idle, form({ token, password: "brand-new-pass-7", confirm: "brand-new-pass-7" }))),
+    ).toBe("/sign-in?reset=1");
     const row = await db().models.User.findByPk(user.id);
     expect(await verifyPassword("brand-new-pass-7", row!.passwordHash)).toBe(true);
 

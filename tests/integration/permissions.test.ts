@@ -53,7 +53,10 @@ async function route(file: string, method: string) {
 }
 
 async function action(name: string) {
-  const mod = (await import(/* @vite-ignore */ path.resolve(`lib/actions/${name}.ts`))) as Record<string, (s: ActionState, f: FormData) => Promise<ActionState>>;
+  const mod = (await import(/* @vite-ignore */ path.resolve(`lib/actions/${name}.ts`))) as Record<
+    string,
+    (s: ActionState, f: FormData) => Promise<ActionState>
+  >;
   return Object.values(mod)[0];
 }
 
@@ -171,8 +174,14 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
     dataKey: "upload",
   },
   // A run not shared with students does not exist for them: 404, like for an outsider. Changing
-// a run needs a role that may change runs at all, checked first: 403 without looking the run up.
-  { file: "app/api/workspaces/[slug]/runs/[runId]/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "run" },
+  // a run needs a role that may change runs at all, checked first: 403 without looking the run up.
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS, { student: 404 }),
+    params: runParams,
+    dataKey: "run",
+  },
   {
     file: "app/api/workspaces/[slug]/runs/[runId]/route.ts",
     method: "DELETE",
@@ -187,11 +196,40 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
     expect: expectFor(409, ["owner", "technician"]),
     params: async () => ({ runId: await freshRun() }),
   },
-  { file: "app/api/workspaces/[slug]/runs/[runId]/status/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "status" },
-  { file: "app/api/workspaces/[slug]/runs/[runId]/results/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "results" },
-  { file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "versions" },
-  { file: "app/api/workspaces/[slug]/runs/[runId]/samples/route.ts", method: "GET", expect: expectFor(200, VIEWERS, { student: 404 }), params: runParams, dataKey: "url" },
-  { file: "app/api/workspaces/[slug]/runs/[runId]/file/route.ts", method: "GET", expect: expectFor(302, VIEWERS, { student: 404 }), params: runParams },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/status/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS, { student: 404 }),
+    params: runParams,
+    dataKey: "status",
+  },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/results/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS, { student: 404 }),
+    params: runParams,
+    dataKey: "results",
+  },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS, { student: 404 }),
+    params: runParams,
+    dataKey: "versions",
+  },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/samples/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS, { student: 404 }),
+    params: runParams,
+    dataKey: "url",
+  },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/file/route.ts",
+    method: "GET",
+    expect: expectFor(302, VIEWERS, { student: 404 }),
+    params: runParams,
+  },
   // Last: re-processing makes the run's current version a queued one.
   {
     file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts",
@@ -206,7 +244,18 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
 /** A run registered by the owner (no file uploaded). */
 async function freshRun(): Promise<string> {
   const { createRun } = await import("@/lib/data/runs");
-  const { run } = await createRun(workspace.id, users.owner.id, { vehicleId: fixtures.vehicleId, capturedOn: "2026-05-02", title: "", fileName: "f.csv", fileSize: 10, columnMapping: {}, units: {}, sensorSlots: {}, model: "auto", powersMotors: false });
+  const { run } = await createRun(workspace.id, users.owner.id, {
+    vehicleId: fixtures.vehicleId,
+    capturedOn: "2026-05-02",
+    title: "",
+    fileName: "f.csv",
+    fileSize: 10,
+    columnMapping: {},
+    units: {},
+    sensorSlots: {},
+    model: "auto",
+    powersMotors: false,
+  });
   return run.id;
 }
 
@@ -215,10 +264,34 @@ beforeAll(async () => {
   const { createSensor } = await import("@/lib/data/sensors");
   const { createSite } = await import("@/lib/data/sites");
   const { processRunVersion } = await import("@/lib/jobs/process-run-version");
-  const vehicle = await createVehicle(workspace.id, users.owner.id, { name: "Fulmar", kind: "multirotor", airframe: "", serialTag: "", customer: "", notes: "" });
+  const vehicle = await createVehicle(workspace.id, users.owner.id, {
+    name: "Fulmar",
+    kind: "multirotor",
+    airframe: "",
+    serialTag: "",
+    customer: "",
+    notes: "",
+  });
   fixtures.vehicleId = vehicle.id;
-  fixtures.sensorId = (await createSensor(workspace.id, users.owner.id, vehicle.id, { kind: "magnetometer", label: "board", placement: "internal", mountingRotation: "none", units: "uT", columnHints: [] })).id;
-  fixtures.siteId = (await createSite(workspace.id, users.owner.id, { name: "Permissions field", latitudeDeg: 47, longitudeDeg: 8, altitudeM: 400, notes: "" })).id;
+  fixtures.sensorId = (
+    await createSensor(workspace.id, users.owner.id, vehicle.id, {
+      kind: "magnetometer",
+      label: "board",
+      placement: "internal",
+      mountingRotation: "none",
+      units: "uT",
+      columnHints: [],
+    })
+  ).id;
+  fixtures.siteId = (
+    await createSite(workspace.id, users.owner.id, {
+      name: "Permissions field",
+      latitudeDeg: 47,
+      longitudeDeg: 8,
+      altitudeM: 400,
+      notes: "",
+    })
+  ).id;
   actAs(users.owner.id);
   const { uploadRun, simulatedCsv } = await import("../support/runs");
   const uploaded = await uploadRun(workspace, { vehicleId: vehicle.id, csv: simulatedCsv({ seed: 5, pathSeconds: 30 }) });
@@ -314,7 +387,12 @@ const WORKSPACE_ACTIONS: WorkspaceActionCase[] = [
     name: "revoke-invitation",
     allowed: ["owner"],
     input: async () => {
-      const invitation = await inviteMember({ workspaceId: workspace.id, inviterId: users.owner.id, email: `rev-${uniqueTag()}@tests.example`, role: "student" });
+      const invitation = await inviteMember({
+        workspaceId: workspace.id,
+        inviterId: users.owner.id,
+        email: `rev-${uniqueTag()}@tests.example`,
+        role: "student",
+      });
       return { invitationId: invitation.id };
     },
     changed: async (input) => Boolean((await db().models.Invitation.findByPk(input.invitationId))!.revokedAt),
@@ -354,7 +432,9 @@ describe.each(WORKSPACE_ACTIONS)("action $name", (c) => {
 describe("actions outside a workspace", () => {
   test.each(["create-workspace", "accept-invitation"])("%s needs a session", async (name) => {
     actAs(null);
-    const state = await (await action(name))(idle, form({ name: "X workspace", slug: `x-${uniqueTag()}`, kind: "other", token: "x".repeat(20) }));
+    const state = await (
+      await action(name)
+    )(idle, form({ name: "X workspace", slug: `x-${uniqueTag()}`, kind: "other", token: "x".repeat(20) }));
     expect(state).toMatchObject({ status: "error", code: "unauthenticated" });
   });
 
@@ -362,7 +442,14 @@ describe("actions outside a workspace", () => {
     const email = `only-${uniqueTag()}@tests.example`;
     const { newToken } = await import("@/lib/tokens");
     const { token, tokenHash } = newToken();
-    await db().models.Invitation.create({ workspaceId: workspace.id, email, role: "student", tokenHash, invitedById: users.owner.id, expiresAt: new Date(Date.now() + 3600_000) });
+    await db().models.Invitation.create({
+      workspaceId: workspace.id,
+      email,
+      role: "student",
+      tokenHash,
+      invitedById: users.owner.id,
+      expiresAt: new Date(Date.now() + 3600_000),
+    });
     actAsActor("outsider");
     const state = await (await action("accept-invitation"))(idle, form({ token }));
     expect(state).toMatchObject({ status: "error", message: expect.stringContaining(email) });
@@ -374,7 +461,9 @@ describe("actions outside a workspace", () => {
     const solo = await makeWorkspace(owner, "solo");
     const membership = await db().models.Membership.findOne({ where: { workspaceId: solo.id, userId: owner.id } });
     actAs(owner.id);
-    const demote = await (await action("change-member-role"))(idle, form({ workspace: solo.slug, membershipId: membership!.id, role: "builder" }));
+    const demote = await (
+      await action("change-member-role")
+    )(idle, form({ workspace: solo.slug, membershipId: membership!.id, role: "builder" }));
     expect(demote).toMatchObject({ status: "error", message: expect.stringMatching(/at least one owner/) });
     const remove = await (await action("remove-member"))(idle, form({ workspace: solo.slug, membershipId: membership!.id }));
     expect(remove).toMatchObject({ status: "error", message: expect.stringMatching(/last owner/) });
@@ -393,7 +482,9 @@ describe("actions outside a workspace", () => {
 
 describe("completeness", () => {
   function walk(dir: string): string[] {
-    return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? walk(path.join(dir, e.name)) : [path.join(dir, e.name)]));
+    return fs
+      .readdirSync(dir, { withFileTypes: true })
+      .flatMap((e) => (e.isDirectory() ? walk(path.join(dir, e.name)) : [path.join(dir, e.name)]));
   }
 
   test("every route handler is walked above", async () => {
@@ -448,18 +539,27 @@ describe("personal API tokens", () => {
     // The token's user keeps their role: a technician's token cannot invite.
     const invite = await route("app/api/workspaces/[slug]/invitations/route.ts", "POST");
     const denied = await invite(
-      new Request("http://test.local/x", { method: "POST", headers: { authorization: `Bearer ${token}`, "content-type": "application/json" }, body: JSON.stringify({ email: "x@tests.example", role: "owner" }) }),
+      new Request("http://test.local/x", {
+        method: "POST",
+        headers: { authorization: `Bearer ${token}`, "content-type": "application/json" },
+        body: JSON.stringify({ email: "x@tests.example", role: "owner" }),
+      }),
       { params: Promise.resolve({ slug: workspace.slug }) },
     );
     expect(denied.status).toBe(403);
     // Revoke through the route, then the token no longer works even with a signed-in session present.
     actAs(users.technician.id);
     const revoke = await route("app/api/tokens/[tokenId]/route.ts", "DELETE");
-    expect((await revoke(new Request("http://test.local/x", { method: "DELETE" }), { params: Promise.resolve({ tokenId: summary.id }) })).status).toBe(200);
+    expect(
+      (await revoke(new Request("http://test.local/x", { method: "DELETE" }), { params: Promise.resolve({ tokenId: summary.id }) })).status,
+    ).toBe(200);
     expect((await me(asToken(token), { params: Promise.resolve({}) })).status).toBe(401);
     expect((await me(asToken("lox_not-a-real-token"), { params: Promise.resolve({}) })).status).toBe(401);
     // Someone else's token id cannot be revoked.
     const other = await createApiToken(users.owner.id, "owner's");
-    expect((await revoke(new Request("http://test.local/x", { method: "DELETE" }), { params: Promise.resolve({ tokenId: other.summary.id }) })).status).toBe(404);
+    expect(
+      (await revoke(new Request("http://test.local/x", { method: "DELETE" }), { params: Promise.resolve({ tokenId: other.summary.id }) }))
+        .status,
+    ).toBe(404);
   });
 });

@@ -25,16 +25,26 @@ beforeAll(async () => {
   owner = await makeUser("runs");
   workspace = await makeWorkspace(owner, "runs");
   actAs(owner.id);
-  const vehicle = await callRoute(`${WS}/vehicles/route.ts`, "POST", { slug: workspace.slug }, { name: "Tern 4", kind: "multirotor", serialTag: "T4-0007" });
+  const vehicle = await callRoute(
+    `${WS}/vehicles/route.ts`,
+    "POST",
+    { slug: workspace.slug },
+    { name: "Tern 4", kind: "multirotor", serialTag: "T4-0007" },
+  );
   expect(vehicle.status).toBe(201);
   vehicleId = (vehicle.json.vehicle as { id: string }).id;
-  const sensor = await callRoute(`${WS}/vehicles/[vehicleId]/sensors/route.ts`, "POST", { slug: workspace.slug, vehicleId }, {
-    kind: "magnetometer",
-    label: "board",
-    placement: "internal",
-    mountingRotation: "none",
-    units: "uT",
-  });
+  const sensor = await callRoute(
+    `${WS}/vehicles/[vehicleId]/sensors/route.ts`,
+    "POST",
+    { slug: workspace.slug, vehicleId },
+    {
+      kind: "magnetometer",
+      label: "board",
+      placement: "internal",
+      mountingRotation: "none",
+      units: "uT",
+    },
+  );
   expect(sensor.status).toBe(201);
   magId = (sensor.json.sensor as { id: string }).id;
   const site = await callRoute(`${WS}/sites/route.ts`, "POST", { slug: workspace.slug }, TEST_SITE);
@@ -54,7 +64,11 @@ async function currentVersionOf(runId: string): Promise<string> {
 describe("a good capture", () => {
   test("upload → process → results, with the headline numbers on the run", async () => {
     actAs(owner.id);
-    const csv = simulatedCsv({ seed: 11, siteFieldNed: siteFieldNed(), magnetometers: [{ hardIronOffset: [12, -7, 20], softIron: "mild" }] });
+    const csv = simulatedCsv({
+      seed: 11,
+      siteFieldNed: siteFieldNed(),
+      magnetometers: [{ hardIronOffset: [12, -7, 20], softIron: "mild" }],
+    });
     const { runId, status } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { mag0: magId }, csv });
     expect(status).toBe(202);
     const pending = await callRoute(`${WS}/runs/[runId]/status/route.ts`, "GET", { slug: workspace.slug, runId });
@@ -76,7 +90,11 @@ describe("a good capture", () => {
 
     const results = await callRoute(`${WS}/runs/[runId]/results/route.ts`, "GET", { slug: workspace.slug, runId });
     expect(results.status).toBe(200);
-    const body = results.json.results as { magnetometers: { offset: number[] }[]; checks: unknown[]; samples: { fields: string[]; length: number } };
+    const body = results.json.results as {
+      magnetometers: { offset: number[] }[];
+      checks: unknown[];
+      samples: { fields: string[]; length: number };
+    };
     expect(body.magnetometers[0].offset[0]).toBeCloseTo(12, 0);
     expect(body.checks.length).toBeGreaterThan(3);
     expect(body.samples.fields).toContain("mag0.x");
@@ -110,7 +128,13 @@ describe("a good capture", () => {
       [2, "sphere", "done"],
     ]);
     expect((versions[1].results as { magnetometers: { model: string }[] }).magnetometers[0].model).toBe("sphere");
-    const first = await callRoute(`${WS}/runs/[runId]/results/route.ts`, "GET", { slug: workspace.slug, runId }, undefined, `?version=${versions[0].id}`);
+    const first = await callRoute(
+      `${WS}/runs/[runId]/results/route.ts`,
+      "GET",
+      { slug: workspace.slug, runId },
+      undefined,
+      `?version=${versions[0].id}`,
+    );
     expect(first.status).toBe(200);
   });
 });
@@ -121,7 +145,10 @@ function rows(n: number, at?: (i: number) => string | null): string {
   const lines = [GOOD_HEADER];
   for (let i = 0; i < n; i++) {
     const a = (2 * Math.PI * i) / n;
-    lines.push(at?.(i) ?? `${(i * 0.02).toFixed(2)},${(40 * Math.cos(a)).toFixed(3)},${(40 * Math.sin(a)).toFixed(3)},${(10 * Math.sin(3 * a)).toFixed(3)}`);
+    lines.push(
+      at?.(i) ??
+        `${(i * 0.02).toFixed(2)},${(40 * Math.cos(a)).toFixed(3)},${(40 * Math.sin(a)).toFixed(3)},${(10 * Math.sin(3 * a)).toFixed(3)}`,
+    );
   }
   return lines.join("\n") + "\n";
 }
@@ -129,7 +156,13 @@ function rows(n: number, at?: (i: number) => string | null): string {
 const BAD_FILES: [string, string, RegExp, number | undefined, string | undefined][] = [
   ["wrong delimiter", rows(200).replace(/,/g, " "), /delimiter|separat|column/i, undefined, undefined],
   ["text in a number column", rows(200, (i) => (i === 41 ? "0.82,12.5,oops,3.1" : null)), /number/i, 43, "mag0.y"],
-  ["missing required columns", "time,temperature\n" + Array.from({ length: 200 }, (_, i) => `${i},20`).join("\n"), /magnetometer|accelerometer|sensor|column/i, undefined, undefined],
+  [
+    "missing required columns",
+    "time,temperature\n" + Array.from({ length: 200 }, (_, i) => `${i},20`).join("\n"),
+    /magnetometer|accelerometer|sensor|column/i,
+    undefined,
+    undefined,
+  ],
   ["NaN in a value", rows(200, (i) => (i === 9 ? "0.18,NaN,1,2" : null)), /NaN|finite|number/i, 11, "mag0.x"],
   ["Infinity in a value", rows(200, (i) => (i === 9 ? "0.18,1,Infinity,2" : null)), /Inf|finite|number/i, 11, "mag0.y"],
   ["time going backwards", rows(200, (i) => (i === 100 ? "0.5,1,2,3" : null)), /time|monoton|backwards|increas/i, 102, "time"],
@@ -168,13 +201,18 @@ describe("refused before any upload", () => {
   ])("%s gets a 400 naming the field, and nothing is written", async (_label, override, field) => {
     actAs(owner.id);
     const before = await db().models.Run.count({ where: { workspaceId: workspace.id } });
-    const response = await callRoute(`${WS}/runs/route.ts`, "POST", { slug: workspace.slug }, {
-      vehicleId,
-      capturedOn: "2026-06-01",
-      fileName: "capture.csv",
-      fileSize: 1000,
-      ...override,
-    });
+    const response = await callRoute(
+      `${WS}/runs/route.ts`,
+      "POST",
+      { slug: workspace.slug },
+      {
+        vehicleId,
+        capturedOn: "2026-06-01",
+        fileName: "capture.csv",
+        fileSize: 1000,
+        ...override,
+      },
+    );
     expect(response.status).toBe(400);
     expect(Object.keys(response.json.fields as object)).toContain(field);
     expect(await db().models.Run.count({ where: { workspaceId: workspace.id } })).toBe(before);
@@ -184,20 +222,30 @@ describe("refused before any upload", () => {
     actAs(owner.id);
     const other = await callRoute(`${WS}/vehicles/route.ts`, "POST", { slug: workspace.slug }, { name: "Skua 2", kind: "fixed-wing" });
     const otherId = (other.json.vehicle as { id: string }).id;
-    const response = await callRoute(`${WS}/runs/route.ts`, "POST", { slug: workspace.slug }, {
-      vehicleId: otherId,
-      capturedOn: "2026-06-01",
-      fileName: "c.csv",
-      fileSize: 10,
-      sensorSlots: { mag0: magId },
-    });
+    const response = await callRoute(
+      `${WS}/runs/route.ts`,
+      "POST",
+      { slug: workspace.slug },
+      {
+        vehicleId: otherId,
+        capturedOn: "2026-06-01",
+        fileName: "c.csv",
+        fileSize: 10,
+        sensorSlots: { mag0: magId },
+      },
+    );
     expect(response.status).toBe(409);
     expect(String(response.json.message)).toMatch(/this vehicle's sensors/);
   });
 
   test("marking uploaded before the file arrived is refused and queues nothing", async () => {
     actAs(owner.id);
-    const created = await callRoute(`${WS}/runs/route.ts`, "POST", { slug: workspace.slug }, { vehicleId, capturedOn: "2026-06-01", fileName: "late.csv", fileSize: 10 });
+    const created = await callRoute(
+      `${WS}/runs/route.ts`,
+      "POST",
+      { slug: workspace.slug },
+      { vehicleId, capturedOn: "2026-06-01", fileName: "late.csv", fileSize: 10 },
+    );
     const runId = (created.json.run as { id: string }).id;
     const marked = await callRoute(`${WS}/runs/[runId]/uploaded/route.ts`, "POST", { slug: workspace.slug, runId });
     expect(marked.status).toBe(409);
@@ -212,7 +260,13 @@ describe("lists", () => {
     expect(all.status).toBe(200);
     expect((all.json.items as unknown[]).length).toBeLessThanOrEqual(3);
     expect(all.json.total as number).toBeGreaterThan(3);
-    const failed = await callRoute(`${WS}/runs/route.ts`, "GET", { slug: workspace.slug }, undefined, `?status=failed&vehicleId=${vehicleId}`);
+    const failed = await callRoute(
+      `${WS}/runs/route.ts`,
+      "GET",
+      { slug: workspace.slug },
+      undefined,
+      `?status=failed&vehicleId=${vehicleId}`,
+    );
     expect((failed.json.items as { status: string }[]).every((r) => r.status === "failed")).toBe(true);
     expect(failed.json.total).toBe(BAD_FILES.length);
     const bad = await callRoute(`${WS}/runs/route.ts`, "GET", { slug: workspace.slug }, undefined, "?verdict=maybe");

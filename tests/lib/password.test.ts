@@ -16,7 +16,11 @@ describe("hashPassword / verifyPassword", () => {
     expect(await verifyPassword("field-4", stored)).toBe(true);
   });
 
-  test.each([["empty", ""], ["other scheme", "bcrypt$x$y"], ["truncated", "scrypt$32768$8$1$"]])("a malformed stored hash (%s) never verifies", async (_label, stored) => {
+  test.each([
+    ["empty", ""],
+    ["other scheme", "bcrypt$x$y"],
+    ["truncated", "scrypt$32768$8$1$"],
+  ])("a malformed stored hash (%s) never verifies", async (_label, stored) => {
     expect(await verifyPassword("anything-1", stored)).toBe(false);
   });
 });

@@ -22,7 +22,9 @@ describe("signUpSchema", () => {
 
 describe("resetPasswordSchema", () => {
   test("a mismatched confirmation is reported on the confirm field", () => {
-    expect(firstErrorPath(resetPasswordSchema.safeParse({ token: "t".repeat(20), password: "long-enough-1", confirm: "long-enough-2" }))).toBe("confirm");
+    expect(
+      firstErrorPath(resetPasswordSchema.safeParse({ token: "t".repeat(20), password: "long-enough-1", confirm: "long-enough-2" })),
+    ).toBe("confirm");
   });
 });
 

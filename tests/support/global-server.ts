@@ -35,7 +35,11 @@ export default async function setup(project: TestProject) {
     const build = spawnSync(process.execPath, [nextBin, "build"], { cwd: root, env, stdio: ["ignore", "ignore", "inherit"] });
     if (build.status !== 0) throw new Error("next build failed");
   }
-  server = spawn(process.execPath, [nextBin, "start", "-H", "127.0.0.1", "-p", String(port)], { cwd: root, env, stdio: ["ignore", "ignore", "inherit"] });
+  server = spawn(process.execPath, [nextBin, "start", "-H", "127.0.0.1", "-p", String(port)], {
+    cwd: root,
+    env,
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   worker = spawnWorker(env);
   await waitForHttp(`${baseUrl}/api/health`);
   console.log(`[browser] app serving on ${baseUrl}`);

@@ -7,7 +7,13 @@ import type { WorkspaceSummary } from "@/lib/data/workspaces";
 type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
 /** Call a route handler module the way Next would, returning status and parsed JSON. */
-export async function callRoute(file: string, method: string, params: Record<string, string>, body?: unknown, query = ""): Promise<{ status: number; json: Record<string, unknown>; response: Response }> {
+export async function callRoute(
+  file: string,
+  method: string,
+  params: Record<string, string>,
+  body?: unknown,
+  query = "",
+): Promise<{ status: number; json: Record<string, unknown>; response: Response }> {
   const mod = (await import(/* @vite-ignore */ path.resolve(file))) as Record<string, Handler>;
   const handler = mod[method];
   if (!handler) throw new Error(`${file} has no ${method}`);
@@ -36,17 +42,30 @@ export function simulatedCsv(spec: CaptureSpec): string {
 /** Register a run, PUT the file to its presigned URL and mark it uploaded. Returns the run id and its first version. */
 export async function uploadRun(
   workspace: WorkspaceSummary,
-  input: { vehicleId: string; siteId?: string | null; sensorSlots?: Record<string, string>; csv: string; fileName?: string; model?: string; capturedOn?: string },
+  input: {
+    vehicleId: string;
+    siteId?: string | null;
+    sensorSlots?: Record<string, string>;
+    csv: string;
+    fileName?: string;
+    model?: string;
+    capturedOn?: string;
+  },
 ): Promise<{ runId: string; status: number; json: Record<string, unknown> }> {
-  const created = await callRoute(`${WS}/runs/route.ts`, "POST", { slug: workspace.slug }, {
-    vehicleId: input.vehicleId,
-    siteId: input.siteId ?? null,
-    capturedOn: input.capturedOn ?? "2026-06-01",
-    fileName: input.fileName ?? "capture.csv",
-    fileSize: Buffer.byteLength(input.csv),
-    sensorSlots: input.sensorSlots ?? {},
-    model: input.model ?? "auto",
-  });
+  const created = await callRoute(
+    `${WS}/runs/route.ts`,
+    "POST",
+    { slug: workspace.slug },
+    {
+      vehicleId: input.vehicleId,
+      siteId: input.siteId ?? null,
+      capturedOn: input.capturedOn ?? "2026-06-01",
+      fileName: input.fileName ?? "capture.csv",
+      fileSize: Buffer.byteLength(input.csv),
+      sensorSlots: input.sensorSlots ?? {},
+      model: input.model ?? "auto",
+    },
+  );
   if (created.status !== 201) return { runId: "", status: created.status, json: created.json };
   const { run, upload } = created.json as { run: { id: string }; upload: { url: string } };
   const put = await fetch(upload.url, { method: "PUT", body: input.csv, headers: { "content-type": "text/csv" } });

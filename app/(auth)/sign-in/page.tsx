@@ -20,8 +20,16 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
           </Link>
         </p>
       </div>
-      {params.reset ? <p role="status" className="rounded-lg bg-steady-soft px-3 py-2 text-sm">Your new password is set. Sign in with it.</p> : null}
-      {params["signed-out"] ? <p role="status" className="rounded-lg bg-chart-sheet px-3 py-2 text-sm">You are signed out.</p> : null}
+      {params.reset ? (
+        <p role="status" className="rounded-lg bg-steady-soft px-3 py-2 text-sm">
+          Your new password is set. Sign in with it.
+        </p>
+      ) : null}
+      {params["signed-out"] ? (
+        <p role="status" className="rounded-lg bg-chart-sheet px-3 py-2 text-sm">
+          You are signed out.
+        </p>
+      ) : null}
       <SignInForm next={params.next} />
     </>
   );

@@ -16,7 +16,9 @@ export default async function CapturedMailPage() {
       <div>
         <p className="font-mono text-xs text-brass-600">development only</p>
         <h1 className="text-3xl font-semibold">Captured mail</h1>
-        <p className="text-chart-muted">Everything the app sent through the local SMTP sink, newest first. Nothing here left this machine.</p>
+        <p className="text-chart-muted">
+          Everything the app sent through the local SMTP sink, newest first. Nothing here left this machine.
+        </p>
       </div>
       {messages.length === 0 ? <p className="card p-6">No mail yet.</p> : null}
       <ul className="space-y-4">

@@ -28,7 +28,11 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
             <tr>
               <th className="px-6 py-2 font-medium">Name</th>
               <th className="px-6 py-2 font-medium">Role</th>
-              {mayRemove ? <th className="px-6 py-2 font-medium"><span className="sr-only">Actions</span></th> : null}
+              {mayRemove ? (
+                <th className="px-6 py-2 font-medium">
+                  <span className="sr-only">Actions</span>
+                </th>
+              ) : null}
             </tr>
           </thead>
           <tbody className="divide-y divide-chart-rule">

@@ -3,7 +3,9 @@ import { readJson, workspaceRoute } from "@/lib/api";
 import { createSite, listSites } from "@/lib/data/sites";
 import { siteSchema } from "@/lib/validations/fleet";
 
-export const GET = workspaceRoute("workspace.view", async (_request, { access }) => NextResponse.json({ sites: await listSites(access.workspace.id) }));
+export const GET = workspaceRoute("workspace.view", async (_request, { access }) =>
+  NextResponse.json({ sites: await listSites(access.workspace.id) }),
+);
 
 /** Add a site: name, latitude and longitude in degrees (WGS 84), altitude in metres. */
 export const POST = workspaceRoute("site.edit", async (request, { access, viewer }) => {

@@ -13,5 +13,10 @@ export const GET = workspaceRoute<{ slug: string; runId: string }>("run.view", a
   const found = await getRunResults(context.access.workspace.id, runId);
   const samples = found?.results.samples as { key: string; fields: string[]; length: number; layout: string } | undefined;
   if (!samples) return jsonError(409, "not-ready", "No samples for this run (yet): see its status.");
-  return NextResponse.json({ url: await presignDownload(samples.key, `run-${runId}-samples.f32`), fields: samples.fields, length: samples.length, layout: samples.layout });
+  return NextResponse.json({
+    url: await presignDownload(samples.key, `run-${runId}-samples.f32`),
+    fields: samples.fields,
+    length: samples.length,
+    layout: samples.layout,
+  });
 });

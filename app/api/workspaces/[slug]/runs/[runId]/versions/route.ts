@@ -18,5 +18,8 @@ export const POST = workspaceRoute<P>("run.edit", async (request, context, { run
   if (access === "forbidden") return forbidden();
   const body = await readJson(request, reprocessSchema);
   if (!body.ok) return body.response;
-  return NextResponse.json({ version: await reprocessRun(context.access.workspace.id, context.viewer.id, runId, body.data) }, { status: 202 });
+  return NextResponse.json(
+    { version: await reprocessRun(context.access.workspace.id, context.viewer.id, runId, body.data) },
+    { status: 202 },
+  );
 });

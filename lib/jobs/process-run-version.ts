@@ -1,7 +1,9 @@
 import crypto from "node:crypto";
 import { Transform } from "node:stream";
 import { analyseCapture } from "@/geometry/analyse-capture";
-import type { CaptureUnits } from "@/geometry/capture-units";
+import { convertCapture, type CaptureUnits } from "@/geometry/capture-units";
+import { buildRunView } from "@/geometry/run-view";
+import { resolveThresholds } from "@/geometry/thresholds";
 import { parseUnitForKind, type QuantityKind } from "@/geometry/units";
 import type { CaptureField } from "@/geometry/types";
 import { db } from "@/lib/db";
@@ -122,6 +124,11 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
   const { table } = ingested;
   const samplesKey = `${run.fileKey.replace(/\/upload\/[^/]+$/, "")}/versions/${version.number}/samples.f32`;
   await putObject(samplesKey, packSamples(table.fields, table.columns, table.length));
+  // What the run page draws, cut down here once rather than on every page view.
+  const fieldBandPercent = resolveThresholds()["mag.field-vs-model"].warnAbove ?? 10;
+  const view = buildRunView(convertCapture(table, analysis.units), analysis, { fieldBandPercent });
+  const viewKey = samplesKey.replace(/samples\.f32$/, "view.json");
+  await putObject(viewKey, JSON.stringify(toJsonSafe(view)), "application/json");
 
   const first = analysis.magnetometers.find((m) => m.ok) ?? null;
   const offsetNorm = first?.offset ? Math.hypot(...first.offset) : null;

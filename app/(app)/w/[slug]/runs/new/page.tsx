@@ -1,0 +1,44 @@
+import type { Metadata } from "next";
+import { RunUploader } from "@/components/upload/run-uploader";
+import { listSites } from "@/lib/data/sites";
+import { listVehicles } from "@/lib/data/vehicles";
+import { requireWorkspacePage } from "@/lib/guard";
+
+export const metadata: Metadata = { title: "Upload a capture" };
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export default async function NewRunPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ slug: string }>;
+  searchParams: Promise<{ run?: string | string[] }>;
+}) {
+  const { slug } = await params;
+  const { run } = await searchParams;
+  const { access } = await requireWorkspacePage(slug, "run.create");
+  const [vehicles, sites] = await Promise.all([
+    listVehicles(access.workspace.id, { sort: "name", order: "asc", pageSize: 100 }),
+    listSites(access.workspace.id),
+  ]);
+  const resumeRunId = typeof run === "string" && UUID.test(run) ? run : null;
+  return (
+    <div className="space-y-6">
+      <header>
+        <h2 className="text-xl font-semibold">Upload a capture</h2>
+        <p className="mt-1 max-w-prose text-sm text-chart-muted">
+          The samples logged while the vehicle was turned through every orientation (and, for the accelerometer, held still on each face).
+          They are fitted and checked on the server; this page follows the work to its verdict.
+        </p>
+      </header>
+      <RunUploader
+        slug={slug}
+        vehicles={vehicles.items.map((v) => ({ id: v.id, name: v.name, kind: v.kind }))}
+        vehiclesTotal={vehicles.total}
+        sites={sites}
+        resumeRunId={resumeRunId}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,276 @@
+/**
+ * Starting a run from the browser, end to end in headless Chromium against the real server,
+ * PostgreSQL, the object-storage fake and the background worker: a fresh owner sets up a
+ * vehicle with sensors and a site through the JSON API, then uploads simulated captures
+ * through the page — a good full tumble that ends with its verdict and appears in the runs
+ * list, a file with text in a number column that fails naming its row and column, and a
+ * motor-current capture that cannot be sent before the safety cautions are confirmed.
+ * Every capture is invented by the simulator; the site's field is the World Magnetic Model's.
+ */
+import { afterAll, beforeAll, describe, expect, inject, test } from "vitest";
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { magneticReference } from "@/geometry/magnetic-reference";
+import type { BodyFace } from "@/geometry/magnetometer-types";
+import { simulateCapture, tableToCsv } from "@/geometry/simulator";
+import { artefactPath, launchBrowser } from "../support/browser";
+import { uniqueTag } from "../support/factories";
+
+const baseUrl = inject("baseUrl");
+const tag = uniqueTag();
+const owner = { name: "Ailsa Brodie", email: `ailsa-${tag}@tests.example`, password: "north-light-2026" };
+const slug = `corrie-${tag}`;
+const api = `${baseUrl}/api/workspaces/${slug}`;
+// An invented site of our choosing; the World Magnetic Model gives its real field.
+const site = { name: "Corrie Field", latitudeDeg: 57.42, longitudeDeg: -4.23, altitudeM: 120 };
+const SIX_FACES: BodyFace[] = ["+z", "-z", "+x", "-x", "+y", "-y"];
+
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+const ids = { vehicle: "", boardMag: "", mastMag: "", accel: "", gyro: "", site: "" };
+
+/** The date the page proposes: today in the browser's (and this machine's) time zone. */
+function localToday(): string {
+  const now = new Date();
+  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, "0")}-${String(now.getDate()).padStart(2, "0")}`;
+}
+
+/** A clean full tumble after six still faces, with the site's real field, as CSV text. */
+function tumbleCsv(extra: Parameters<typeof simulateCapture>[0] = {}): string {
+  const reference = magneticReference(site, new Date(`${localToday()}T12:00:00Z`));
+  return tableToCsv(
+    simulateCapture({
+      seed: 7,
+      siteFieldNed: reference.fieldNedMicrotesla,
+      holds: { faces: SIX_FACES },
+      magnetometers: [{ hardIronOffset: [6, -4, 11], softIron: "mild" }],
+      ...extra,
+    }).table,
+  );
+}
+
+async function post<T>(path: string, data: unknown): Promise<T> {
+  const response = await page.request.post(`${api}${path}`, { data });
+  expect(response.status(), `${path}: ${await response.text()}`).toBe(201);
+  return (await response.json()) as T;
+}
+
+async function openUploadPage() {
+  await page.goto(`${baseUrl}/w/${slug}/runs/new`);
+  await page.getByRole("heading", { name: "Upload a capture" }).waitFor();
+}
+
+async function pickFile(name: string, text: string, mimeType = "text/csv") {
+  await page.locator("#run-file").setInputFiles({ name, mimeType, buffer: Buffer.from(text) });
+}
+
+async function columnChoices(): Promise<string[]> {
+  return page.locator('[data-testid="preview-column"] select').evaluateAll((selects) => selects.map((s) => (s as HTMLSelectElement).value));
+}
+
+/** Records every value the two progress bars take, from inside the page. */
+async function recordProgress() {
+  await page.evaluate(() => {
+    const seen: Record<string, number[]> = {};
+    (window as unknown as { __progress: typeof seen }).__progress = seen;
+    const note = (element: Element) => {
+      const id = element.getAttribute("data-testid");
+      const value = element.getAttribute("aria-valuenow");
+      if (!id || value === null) return;
+      const list = (seen[id] ??= []);
+      if (list[list.length - 1] !== Number(value)) list.push(Number(value));
+    };
+    new MutationObserver((mutations) => {
+      for (const mutation of mutations) {
+        if (mutation.type === "attributes") note(mutation.target as Element);
+        mutation.addedNodes.forEach((node) => {
+          if (node instanceof Element) node.querySelectorAll("[role=progressbar]").forEach(note);
+        });
+      }
+    }).observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ["aria-valuenow"] });
+  });
+}
+
+async function recordedProgress(): Promise<Record<string, number[]>> {
+  return page.evaluate(() => (window as unknown as { __progress: Record<string, number[]> }).__progress);
+}
+
+async function runsTotal(): Promise<number> {
+  const response = await page.request.get(`${api}/runs`);
+  return ((await response.json()) as { total: number }).total;
+}
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  context = await browser.newContext();
+  page = await context.newPage();
+
+  // A fresh owner signs up through the page; the rest is set up through the JSON API with the page's cookies.
+  await page.goto(`${baseUrl}/sign-up`);
+  await page.getByLabel("Your name", { exact: true }).fill(owner.name);
+  await page.getByLabel("E-mail", { exact: true }).fill(owner.email);
+  await page.getByLabel("Password", { exact: true }).fill(owner.password);
+  await page.getByRole("button", { name: "Create account" }).click();
+  await page.waitForURL(`${baseUrl}/workspaces/new`);
+  const workspace = await page.request.post(`${baseUrl}/api/workspaces`, {
+    data: { name: "Corrie Aerial Survey", slug, kind: "operator" },
+  });
+  expect(workspace.status()).toBe(201);
+
+  ids.vehicle = (
+    await post<{ vehicle: { id: string } }>("/vehicles", { name: "Heron hexacopter", kind: "multirotor", serialTag: "HX-07" })
+  ).vehicle.id;
+  await post("/vehicles", { name: "Kestrel rover", kind: "rover" });
+  const sensor = async (body: Record<string, unknown>) =>
+    (await post<{ sensor: { id: string } }>(`/vehicles/${ids.vehicle}/sensors`, body)).sensor.id;
+  // The board compass is listed first, but the mast module names the file's columns: the hint must win over the order.
+  ids.boardMag = await sensor({ kind: "magnetometer", label: "board", placement: "internal", mountingRotation: "none", units: "uT" });
+  ids.mastMag = await sensor({
+    kind: "magnetometer",
+    label: "mast module",
+    placement: "external",
+    mountingRotation: "none",
+    units: "uT",
+    columnHints: ["mag0.x", "mag0.y", "mag0.z"],
+  });
+  ids.accel = await sensor({ kind: "accelerometer", label: "board", placement: "internal", mountingRotation: "none", units: "m/s2" });
+  ids.gyro = await sensor({ kind: "gyroscope", label: "board", placement: "internal", mountingRotation: "none", units: "rad/s" });
+  ids.site = (await post<{ site: { id: string } }>("/sites", site)).site.id;
+});
+
+afterAll(async () => {
+  await context?.close();
+  await browser?.close();
+});
+
+describe("the upload page", () => {
+  test("a full tumble is previewed, uploaded with both progress bars to the end, checked, and listed with its verdict", async () => {
+    await openUploadPage();
+    expect(await page.getByText(/up to 200 MB, 2,000,000 rows and 64 columns/).count()).toBe(1);
+
+    // A file that is not CSV or TSV is refused at once.
+    await pickFile("flight-notes.pdf", "%PDF-1.4", "application/pdf");
+    await expect.poll(() => page.locator("#run-file-error").textContent()).toContain("is not a CSV or TSV file");
+
+    // The preview, parsed in the worker: comma-separated, every column recognised from its name.
+    const csv = tumbleCsv();
+    const headers = csv.slice(0, csv.indexOf("\n")).split(",");
+    await pickFile("corrie-tumble.csv", csv);
+    await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
+    expect(await columnChoices()).toEqual(headers);
+    expect(await page.getByTestId("mapping-problems").count()).toBe(0);
+
+    // Units: the simulator writes µT, m/s², rad/s and seconds; the names do not say so, so they are stated.
+    await page.getByLabel("Magnetic field unit").selectOption("uT");
+    await page.getByLabel("Acceleration unit").selectOption("m/s2");
+    await page.getByLabel("Angular rate unit").selectOption("rad/s");
+    await page.getByLabel("Time unit").selectOption("s");
+
+    // The vehicle's sensors fill the slots: mag0 by the mast module's column hints, the others by order.
+    await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
+    await expect.poll(() => page.locator("#slot-mag0").inputValue()).toBe(ids.mastMag);
+    expect(await page.locator("#slot-accel0").inputValue()).toBe(ids.accel);
+    expect(await page.locator("#slot-gyro0").inputValue()).toBe(ids.gyro);
+    expect(await page.getByLabel("Capture date").inputValue()).toBe(localToday());
+    await page.getByLabel("Site", { exact: true }).selectOption(ids.site);
+    await page.getByLabel("Title (optional)").fill(`Corrie tumble ${tag}`);
+    expect(await page.getByLabel("Magnetometer model").inputValue()).toBe("auto");
+    expect(await page.getByTestId("motor-cautions").count()).toBe(0);
+    await page.screenshot({ path: artefactPath("upload-form.png"), fullPage: true });
+
+    await recordProgress();
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    const verdict = page.getByTestId("run-verdict");
+    await verdict.waitFor({ timeout: 60_000 });
+    expect(await verdict.getAttribute("data-verdict")).toBe("pass");
+    expect(page.url()).toMatch(/\?run=[0-9a-f-]{36}$/);
+    const runId = new URL(page.url()).searchParams.get("run")!;
+
+    // Both bars only ever moved forward and reached the end; the upload bar counted the real bytes.
+    const seen = await recordedProgress();
+    for (const bar of ["upload-progress", "processing-progress"]) {
+      const values = seen[bar] ?? [];
+      expect(values.at(-1), bar).toBe(100);
+      expect(values, bar).toEqual([...values].sort((a, b) => a - b));
+    }
+    expect(await page.getByTestId("upload-progress").getAttribute("aria-valuetext")).toContain(`of ${Math.round(csv.length / 1024)} kB`);
+    expect(await page.getByTestId("processing-progress").getAttribute("aria-valuetext")).toContain("Ready");
+    await page.screenshot({ path: artefactPath("upload.png"), fullPage: true });
+
+    // A reload picks the run up again from the address.
+    await page.reload();
+    await page.getByTestId("run-verdict").waitFor();
+    expect(await page.getByTestId("run-verdict").getAttribute("data-verdict")).toBe("pass");
+    expect(await page.getByTestId("run-progress").getAttribute("data-run-id")).toBe(runId);
+    expect(await page.getByTestId("upload-progress").getAttribute("aria-valuenow")).toBe("100");
+
+    // The runs list shows it with its verdict.
+    await page.getByRole("link", { name: "Open the runs list" }).click();
+    await page.waitForURL(`${baseUrl}/w/${slug}/runs`);
+    const row = page.getByTestId("run-row").filter({ hasText: `Corrie tumble ${tag}` });
+    await row.waitFor();
+    expect(await row.locator("[data-verdict]").getAttribute("data-verdict")).toBe("pass");
+    expect(await row.textContent()).toContain("Heron hexacopter");
+    expect(await row.textContent()).toContain(site.name);
+  });
+
+  test("text in a number column ends the run as failed, naming the row and the column, and the file is kept", async () => {
+    const lines = tumbleCsv({ seed: 8 }).split("\n");
+    // Row 500 of the file (the header is row 1), the y axis of the compass.
+    const cells = lines[499].split(",");
+    cells[2] = "n/a";
+    lines[499] = cells.join(",");
+    await openUploadPage();
+    await pickFile("corrie-smudged.csv", lines.join("\n"));
+    await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
+    await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
+    await expect.poll(() => page.locator("#slot-mag0").inputValue()).toBe(ids.mastMag);
+    await page.getByRole("button", { name: "Upload and check" }).click();
+
+    const failure = page.getByTestId("run-error");
+    await failure.waitFor({ timeout: 60_000 });
+    const text = (await failure.textContent()) ?? "";
+    expect(text).toContain('row 500, column "mag0.y"');
+    expect(text).toContain("n/a");
+    expect(await failure.locator("dd").allTextContents()).toEqual(["500", "mag0.y"]);
+    expect(text).toContain("original file was kept");
+    expect(await page.getByTestId("processing-progress").getAttribute("aria-valuenow")).toBe("100");
+    // The kept original can be fetched back.
+    const runId = new URL(page.url()).searchParams.get("run")!;
+    const original = await page.request.get(`${api}/runs/${runId}/file`);
+    expect(original.status()).toBe(200);
+    expect(await original.text()).toContain("n/a");
+  });
+
+  test("the form refuses what cannot be processed: a broken mapping, and a motor capture without the safety confirmation", async () => {
+    const before = await runsTotal();
+    await openUploadPage();
+    await pickFile("corrie-motors.csv", tumbleCsv({ seed: 9, currentTest: { maxAmps: 28 } }));
+    await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
+
+    // A compass axis left out, then a field given twice: each is said where it is.
+    const column = (name: string) => page.getByLabel(`What column “${name}” holds`);
+    await column("mag0.y").selectOption("ignore");
+    await expect.poll(() => page.getByTestId("mapping-problems").textContent()).toContain("mag0 needs all three axes");
+    await column("mag0.y").selectOption("mag0.x");
+    await expect.poll(() => page.getByRole("alert").filter({ hasText: "mag0.x is already given to “mag0.x”" }).count()).toBe(1);
+    await column("mag0.y").selectOption("mag0.y");
+    expect(await page.getByTestId("mapping-problems").count()).toBe(0);
+
+    // A current column is mapped, so the capture powers the motors: the cautions show and must be confirmed.
+    const powers = page.getByLabel("This capture powers the motors (current test)");
+    expect(await powers.isChecked()).toBe(true);
+    expect(await powers.isDisabled()).toBe(true);
+    const cautions = page.getByTestId("motor-cautions");
+    expect(await cautions.textContent()).toMatch(
+      /propellers off.*restrained.*battery.*clear of the motors.*aviation rules.*maker’s manual.*licensed practice/s,
+    );
+    await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    await expect.poll(() => page.locator("#run-safety-acknowledged-error").textContent()).toContain("confirm the cautions");
+    expect(await page.getByTestId("form-error").count()).toBe(1);
+    await page.getByLabel(/I confirm this capture was made with propellers off/).check();
+    expect(await page.locator("#run-safety-acknowledged-error").count()).toBe(0);
+    expect(await runsTotal()).toBe(before);
+  });
+});

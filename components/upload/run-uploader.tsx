@@ -41,11 +41,26 @@ const PLACED_KEYS =
   /^(vehicleId|siteId|capturedOn|title|model|safetyAcknowledged|fileName|fileSize|sensorSlots(\..*)?|units\.\w+|columnMapping(\..*)?)$/;
 
 const NO_SENSORS: SensorSummary[] = [];
+/** Longest column name the API takes in a mapping. */
+const MAX_COLUMN_NAME = 120;
 
 /** Today in the browser's own time zone, as YYYY-MM-DD. */
 function localToday(): string {
   const now = new Date();
   return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, "0")}-${String(now.getDate()).padStart(2, "0")}`;
+}
+
+/**
+ * Every column's meaning, stated, so the server reads the file as previewed. A left-out column
+ * whose name is longer than the API accepts as a key is not listed: nothing would read it anyway.
+ */
+function explicitMapping(headers: string[], mapping: ColumnMapping): ColumnMapping {
+  const stated: ColumnMapping = {};
+  for (const header of headers) {
+    const choice = mapping[header] ?? "ignore";
+    if (choice !== "ignore" || header.length <= MAX_COLUMN_NAME) stated[header] = choice;
+  }
+  return stated;
 }
 
 function positiveScale(unit: string): boolean {
@@ -63,12 +78,15 @@ export function RunUploader({
   slug,
   vehicles,
   vehiclesTotal,
+  initialVehicleId,
   sites,
   resumeRunId,
 }: {
   slug: string;
   vehicles: VehicleChoice[];
   vehiclesTotal: number;
+  /** Chosen beforehand, when the page is opened from a vehicle. */
+  initialVehicleId: string | null;
   sites: SiteSummary[];
   resumeRunId: string | null;
 }) {
@@ -80,8 +98,9 @@ export function RunUploader({
   const [mapping, setMapping] = useState<ColumnMapping>({});
   const [unitChoices, setUnitChoices] = useState<Partial<Record<UnitQuantity, string>>>({});
   const [details, setDetails] = useState<CaptureDetailsValues>(() => ({
-    vehicleId: vehicles.length === 1 ? vehicles[0].id : "",
-    siteId: sites.length === 1 ? sites[0].id : "",
+    vehicleId: initialVehicleId ?? (vehicles.length === 1 ? vehicles[0].id : ""),
+    // No site unless one is chosen: a wrong site would fail a sound calibration against the wrong field.
+    siteId: "",
     capturedOn: localToday(),
     title: "",
     model: "auto",
@@ -165,6 +184,12 @@ export function RunUploader({
     else if (preview.headers.length > UPLOAD_LIMITS.maxColumns)
       found.fileName = `The file has ${preview.headers.length} columns; the limit is ${UPLOAD_LIMITS.maxColumns}.`;
     if (review && review.problems.length > 0) found.columnMapping = review.problems[0];
+    for (const header of preview?.headers ?? []) {
+      if (header.length > MAX_COLUMN_NAME && (mapping[header] ?? "ignore") !== "ignore") {
+        found[`columnMapping.${header}`] =
+          `Only columns with names up to ${MAX_COLUMN_NAME} characters can be mapped; shorten this one in the file.`;
+      }
+    }
     if (!details.vehicleId) found.vehicleId = "Choose the vehicle this capture comes from.";
     if (!/^\d{4}-\d{2}-\d{2}$/.test(details.capturedOn)) found.capturedOn = "Give the capture date.";
     for (const [quantity, unit] of Object.entries(units)) {
@@ -195,7 +220,7 @@ export function RunUploader({
           title: details.title.trim(),
           fileName: file.name,
           fileSize: file.size,
-          columnMapping: Object.fromEntries(preview.headers.map((header) => [header, mapping[header] ?? "ignore"])),
+          columnMapping: explicitMapping(preview.headers, mapping),
           units: Object.fromEntries(Object.entries(units).filter(([, unit]) => unit !== "")),
           sensorSlots: Object.fromEntries(currentSlots.filter((slot) => slotSensors[slot]).map((slot) => [slot, slotSensors[slot]])),
           model: details.model,

@@ -242,19 +242,45 @@ describe("the upload page", () => {
     expect(await original.text()).toContain("n/a");
   });
 
-  test("the form refuses what cannot be processed: a broken mapping, and a motor capture without the safety confirmation", async () => {
+  test("the form reads units from column names, refuses a broken mapping and a motor capture without the safety confirmation, and places the API's field errors", async () => {
     const before = await runsTotal();
-    await openUploadPage();
-    await pickFile("corrie-motors.csv", tumbleCsv({ seed: 9, currentTest: { maxAmps: 28 } }));
+    // Opened from the vehicle's page, the vehicle is already chosen.
+    await page.goto(`${baseUrl}/w/${slug}/runs/new?vehicle=${ids.vehicle}`);
+
+    // A logger's own column names, with units in brackets.
+    const names: Record<string, string> = {
+      time: "Time (s)",
+      "mag0.x": "Compass X (uT)",
+      "mag0.y": "Compass Y (uT)",
+      "mag0.z": "Compass Z (uT)",
+      "accel0.x": "Acc X (m/s2)",
+      "accel0.y": "Acc Y (m/s2)",
+      "accel0.z": "Acc Z (m/s2)",
+      "gyro0.x": "Gyro X (rad/s)",
+      "gyro0.y": "Gyro Y (rad/s)",
+      "gyro0.z": "Gyro Z (rad/s)",
+      current: "Battery current (A)",
+      throttle: "Throttle",
+    };
+    const csv = tumbleCsv({ seed: 9, currentTest: { maxAmps: 28 } });
+    const fields = csv.slice(0, csv.indexOf("\n")).split(",");
+    await pickFile("corrie-motors.csv", [fields.map((f) => names[f]).join(","), csv.slice(csv.indexOf("\n") + 1)].join("\n"));
     await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
+    expect(await columnChoices()).toEqual(fields);
+    expect(await page.getByLabel("Vehicle", { exact: true }).inputValue()).toBe(ids.vehicle);
+    expect(await page.getByLabel("Magnetic field unit").inputValue()).toBe("uT");
+    expect(await page.getByLabel("Acceleration unit").inputValue()).toBe("m/s2");
+    expect(await page.getByLabel("Angular rate unit").inputValue()).toBe("rad/s");
+    expect(await page.getByLabel("Time unit").inputValue()).toBe("s");
+    expect(await page.getByLabel("Current unit").inputValue()).toBe("A");
 
     // A compass axis left out, then a field given twice: each is said where it is.
     const column = (name: string) => page.getByLabel(`What column “${name}” holds`);
-    await column("mag0.y").selectOption("ignore");
+    await column("Compass Y (uT)").selectOption("ignore");
     await expect.poll(() => page.getByTestId("mapping-problems").textContent()).toContain("mag0 needs all three axes");
-    await column("mag0.y").selectOption("mag0.x");
-    await expect.poll(() => page.getByRole("alert").filter({ hasText: "mag0.x is already given to “mag0.x”" }).count()).toBe(1);
-    await column("mag0.y").selectOption("mag0.y");
+    await column("Compass Y (uT)").selectOption("mag0.x");
+    await expect.poll(() => page.getByRole("alert").filter({ hasText: "mag0.x is already given to “Compass X (uT)”" }).count()).toBe(1);
+    await column("Compass Y (uT)").selectOption("mag0.y");
     expect(await page.getByTestId("mapping-problems").count()).toBe(0);
 
     // A current column is mapped, so the capture powers the motors: the cautions show and must be confirmed.
@@ -265,12 +291,58 @@ describe("the upload page", () => {
     expect(await cautions.textContent()).toMatch(
       /propellers off.*restrained.*battery.*clear of the motors.*aviation rules.*maker’s manual.*licensed practice/s,
     );
-    await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
     await page.getByRole("button", { name: "Upload and check" }).click();
     await expect.poll(() => page.locator("#run-safety-acknowledged-error").textContent()).toContain("confirm the cautions");
     expect(await page.getByTestId("form-error").count()).toBe(1);
     await page.getByLabel(/I confirm this capture was made with propellers off/).check();
     expect(await page.locator("#run-safety-acknowledged-error").count()).toBe(0);
+    expect(await runsTotal()).toBe(before);
+
+    // The API's answer to bad input ({error, message, fields}, as documented) lands beside each field;
+    // the answer is stood in for here, since the form itself lets none of these through.
+    let sent: Record<string, unknown> | null = null;
+    await page.route(`${api}/runs`, async (route) => {
+      sent = route.request().postDataJSON() as Record<string, unknown>;
+      await route.fulfill({
+        status: 400,
+        json: {
+          error: "invalid",
+          message: "Some fields need attention.",
+          fields: {
+            capturedOn: "Give the capture date as YYYY-MM-DD.",
+            "units.magnetic": "Magnetic unit not recognised.",
+            "columnMapping.Compass Z (uT)": "Map columns to a sensor axis such as mag0.x.",
+            "sensorSlots.mag0": "Slot mag0 needs a magnetometer.",
+            safetyAcknowledged: "This capture powers motors: confirm the safety cautions first.",
+            vehicleId: "Choose a vehicle.",
+            somethingElse: "A field the form does not show.",
+          },
+        },
+      });
+    });
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    await expect.poll(() => page.locator("#run-captured-on-error").textContent()).toBe("Give the capture date as YYYY-MM-DD.");
+    await page.unroute(`${api}/runs`);
+    expect(await page.locator("#unit-magnetic-error").textContent()).toBe("Magnetic unit not recognised.");
+    expect(await page.locator("#column-3-error").textContent()).toBe("Map columns to a sensor axis such as mag0.x.");
+    expect(await page.locator("#slot-mag0-error").textContent()).toBe("Slot mag0 needs a magnetometer.");
+    expect(await page.locator("#run-safety-acknowledged-error").textContent()).toContain("confirm the safety cautions");
+    expect(await page.locator("#run-vehicle-error").textContent()).toBe("Choose a vehicle.");
+    expect(await page.getByTestId("form-error").textContent()).toContain("somethingElse: A field the form does not show.");
+    // What the form sent: the motor capture with its confirmation, the units read from the names, the sensors by hint and order.
+    expect(sent).toMatchObject({
+      vehicleId: ids.vehicle,
+      siteId: null,
+      fileName: "corrie-motors.csv",
+      powersMotors: true,
+      safetyAcknowledged: true,
+      model: "auto",
+      units: { magnetic: "uT", acceleration: "m/s2", rate: "rad/s", time: "s", current: "A" },
+      sensorSlots: { mag0: ids.boardMag, accel0: ids.accel, gyro0: ids.gyro },
+    });
+    expect((sent as unknown as { columnMapping: Record<string, string> }).columnMapping).toEqual(
+      Object.fromEntries(fields.map((f) => [names[f], f])),
+    );
     expect(await runsTotal()).toBe(before);
   });
 });

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { RunUploader } from "@/components/upload/run-uploader";
 import { listSites } from "@/lib/data/sites";
-import { listVehicles } from "@/lib/data/vehicles";
+import { getVehicle, listVehicles } from "@/lib/data/vehicles";
 import { requireWorkspacePage } from "@/lib/guard";
 
 export const metadata: Metadata = { title: "Upload a capture" };
@@ -13,16 +13,23 @@ export default async function NewRunPage({
   searchParams,
 }: {
   params: Promise<{ slug: string }>;
-  searchParams: Promise<{ run?: string | string[] }>;
+  searchParams: Promise<{ run?: string | string[]; vehicle?: string | string[] }>;
 }) {
   const { slug } = await params;
-  const { run } = await searchParams;
+  const { run, vehicle } = await searchParams;
   const { access } = await requireWorkspacePage(slug, "run.create");
   const [vehicles, sites] = await Promise.all([
     listVehicles(access.workspace.id, { sort: "name", order: "asc", pageSize: 100 }),
     listSites(access.workspace.id),
   ]);
   const resumeRunId = typeof run === "string" && UUID.test(run) ? run : null;
+  // Coming from a vehicle's page (?vehicle=): that vehicle is chosen, even beyond the first hundred.
+  const chosen = typeof vehicle === "string" && UUID.test(vehicle) ? vehicle : null;
+  const choices = vehicles.items.map((v) => ({ id: v.id, name: v.name, kind: v.kind }));
+  if (chosen && !choices.some((v) => v.id === chosen)) {
+    const extra = await getVehicle(access.workspace.id, chosen);
+    if (extra && !extra.archived) choices.push({ id: extra.id, name: extra.name, kind: extra.kind });
+  }
   return (
     <div className="space-y-6">
       <header>
@@ -34,8 +41,9 @@ export default async function NewRunPage({
       </header>
       <RunUploader
         slug={slug}
-        vehicles={vehicles.items.map((v) => ({ id: v.id, name: v.name, kind: v.kind }))}
+        vehicles={choices}
         vehiclesTotal={vehicles.total}
+        initialVehicleId={chosen && choices.some((v) => v.id === chosen) ? chosen : null}
         sites={sites}
         resumeRunId={resumeRunId}
       />

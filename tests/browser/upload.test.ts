@@ -178,10 +178,20 @@ describe("the upload page", () => {
     expect(await page.getByTestId("motor-cautions").count()).toBe(0);
     await page.screenshot({ path: artefactPath("upload-form.png"), fullPage: true });
 
+    // Uploads are slowed to about 300 kB/s, so the bar has bytes in flight to count.
+    const devtools = await context.newCDPSession(page);
+    await devtools.send("Network.emulateNetworkConditions", {
+      offline: false,
+      latency: 0,
+      downloadThroughput: -1,
+      uploadThroughput: 300 * 1024,
+    });
     await recordProgress();
     await page.getByRole("button", { name: "Upload and check" }).click();
     const verdict = page.getByTestId("run-verdict");
     await verdict.waitFor({ timeout: 60_000 });
+    await devtools.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+    await devtools.detach();
     expect(await verdict.getAttribute("data-verdict")).toBe("pass");
     expect(page.url()).toMatch(/\?run=[0-9a-f-]{36}$/);
     const runId = new URL(page.url()).searchParams.get("run")!;
@@ -192,6 +202,10 @@ describe("the upload page", () => {
       const values = seen[bar] ?? [];
       expect(values.at(-1), bar).toBe(100);
       expect(values, bar).toEqual([...values].sort((a, b) => a - b));
+      expect(
+        values.some((v) => v > 0 && v < 100),
+        `${bar} passed through ${values.join(", ")}`,
+      ).toBe(true);
     }
     expect(await page.getByTestId("upload-progress").getAttribute("aria-valuetext")).toContain(`of ${Math.round(csv.length / 1024)} kB`);
     expect(await page.getByTestId("processing-progress").getAttribute("aria-valuetext")).toContain("Ready");

@@ -202,11 +202,9 @@ describe("the upload page", () => {
       const values = seen[bar] ?? [];
       expect(values.at(-1), bar).toBe(100);
       expect(values, bar).toEqual([...values].sort((a, b) => a - b));
-      expect(
-        values.some((v) => v > 0 && v < 100),
-        `${bar} passed through ${values.join(", ")}`,
-      ).toBe(true);
     }
+    // The upload bar counted bytes in flight (the processing bar's steps depend on how fast the worker is).
+    expect(seen["upload-progress"].filter((v) => v > 0 && v < 100).length).toBeGreaterThan(3);
     expect(await page.getByTestId("upload-progress").getAttribute("aria-valuetext")).toContain(`of ${Math.round(csv.length / 1024)} kB`);
     expect(await page.getByTestId("processing-progress").getAttribute("aria-valuetext")).toContain("Ready");
     await page.screenshot({ path: artefactPath("upload.png"), fullPage: true });

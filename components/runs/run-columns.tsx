@@ -22,6 +22,18 @@ export const RUN_SORT_KEYS = [
 
 const dash = <span className="text-chart-muted">—</span>;
 
+/** A header with its unit beneath it, kept in its own case: an upper-case µ would read as M. */
+function withUnit(label: string, unit: string) {
+  return function UnitHeader() {
+    return (
+      <span className="text-right">
+        {label}
+        <span className="block normal-case tracking-normal">{unit}</span>
+      </span>
+    );
+  };
+}
+
 /** A number with a fixed count of decimals, or a dash when the run has none. */
 function figure(value: number | null, digits: number) {
   return value === null || !Number.isFinite(value) ? dash : value.toFixed(digits);
@@ -77,7 +89,7 @@ export function runColumns({ slug, showVehicle, linkVehicles }: { slug: string; 
     helper.accessor("status", { header: "Status", enableSorting: false, cell: ({ row }) => <RunStatus run={row.original} /> }),
     helper.accessor("verdict", { header: "Verdict", cell: ({ getValue }) => <VerdictBadge verdict={getValue()} /> }),
     helper.accessor("coverageFraction", {
-      header: "Coverage %",
+      header: withUnit("Coverage", "%"),
       sortDescFirst: true,
       meta: { align: "end" },
       cell: ({ getValue }) => {
@@ -85,9 +97,21 @@ export function runColumns({ slug, showVehicle, linkVehicles }: { slug: string; 
         return value === null ? dash : (value * 100).toFixed(0);
       },
     }),
-    helper.accessor("residualRms", { header: "Residual µT", meta: { align: "end" }, cell: ({ getValue }) => figure(getValue(), 2) }),
-    helper.accessor("fieldStrength", { header: "Field µT", meta: { align: "end" }, cell: ({ getValue }) => figure(getValue(), 1) }),
-    helper.accessor("offsetNorm", { header: "Offset µT", meta: { align: "end" }, cell: ({ getValue }) => figure(getValue(), 1) }),
+    helper.accessor("residualRms", {
+      header: withUnit("Residual", "µT"),
+      meta: { align: "end" },
+      cell: ({ getValue }) => figure(getValue(), 2),
+    }),
+    helper.accessor("fieldStrength", {
+      header: withUnit("Field", "µT"),
+      meta: { align: "end" },
+      cell: ({ getValue }) => figure(getValue(), 1),
+    }),
+    helper.accessor("offsetNorm", {
+      header: withUnit("Offset", "µT"),
+      meta: { align: "end" },
+      cell: ({ getValue }) => figure(getValue(), 1),
+    }),
   ]);
   return showVehicle ? columns : columns.filter((c) => c.id !== "vehicle");
 }

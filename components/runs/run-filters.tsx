@@ -79,7 +79,7 @@ export function RunFilters({
   searchKey: number;
 }) {
   return (
-    <div className="grid gap-3 px-4 pb-4 sm:grid-cols-2 sm:px-6 lg:grid-cols-4 xl:grid-cols-7">
+    <div className="grid gap-3 px-4 pb-4 sm:grid-cols-2 sm:px-6 lg:grid-cols-4 xl:grid-cols-8">
       <div className="sm:col-span-2 lg:col-span-1 xl:col-span-2">
         <SearchInput
           key={searchKey}

@@ -127,7 +127,7 @@ export function DataTable<T extends RowData>({
                     <th
                       key={header.id}
                       scope="col"
-                      className={`whitespace-nowrap px-4 py-2 font-medium ${end ? "text-right" : ""}`}
+                      className={`whitespace-nowrap px-3 py-2 align-bottom font-medium first:pl-4 last:pr-4 sm:first:pl-6 sm:last:pr-6 ${end ? "text-right" : ""}`}
                       aria-sort={direction === "asc" ? "ascending" : direction === "desc" ? "descending" : undefined}
                     >
                       {header.isPlaceholder ? null : column.getCanSort() ? (
@@ -155,7 +155,7 @@ export function DataTable<T extends RowData>({
               ? Array.from({ length: SKELETON_ROWS }, (_, i) => (
                   <tr key={i} data-testid="skeleton-row">
                     {Array.from({ length: columnCount }, (_, j) => (
-                      <td key={j} className="px-4 py-3">
+                      <td key={j} className="px-3 py-3 first:pl-4 sm:first:pl-6">
                         <span
                           className="block h-3 animate-pulse rounded bg-chart-rule"
                           style={{ width: `${40 + ((i * 7 + j * 13) % 45)}%` }}
@@ -171,7 +171,7 @@ export function DataTable<T extends RowData>({
                       return (
                         <td
                           key={cell.id}
-                          className={`px-4 py-2.5 align-top ${meta?.align === "end" ? "text-right tabular-nums" : ""} ${meta?.cellClassName ?? ""}`}
+                          className={`px-3 py-2.5 align-top first:pl-4 last:pr-4 sm:first:pl-6 sm:last:pr-6 ${meta?.align === "end" ? "text-right tabular-nums" : ""} ${meta?.cellClassName ?? ""}`}
                         >
                           <table.FlexRender cell={cell} />
                         </td>

@@ -5,7 +5,11 @@
  *
  * Steps, each measured in a fresh child process so that its peak resident memory (the
  * kernel's maxRSS) is its own; "above data" is that peak minus the peak of a child that
- * only builds the samples:
+ * only builds the samples. Each step is timed three times after a warm-up and the fastest
+ * run gives samples/s (the median is shown beside it), since other work on the machine can
+ * only slow a run down; "cpu s" is the CPU time of that run over all of Node's threads
+ * (the garbage collector and compiler work in the background), a steadier figure when the
+ * machine is busy:
  * - algebraic: the one-pass normal equations and the constrained fit (full model);
  * - fit: algebraic fit plus geometric refinement (full model) — the figure the "1,000,000
  *   samples well under a second" goal is about;
@@ -39,9 +43,16 @@ const LABELS: Record<Step, string> = {
 interface Measurement {
   step: Step;
   samples: number;
+  /** Wall-clock seconds of the fastest timed run, and the median. */
   seconds: number;
+  medianSeconds: number;
+  /** CPU seconds (user + system, all threads) of the fastest run. */
+  cpuSeconds: number;
   peakRssMiB: number;
 }
+
+/** Timed runs per step: the fastest is the best estimate of the cost on a busy machine. */
+const REPEATS = 3;
 
 function samples(n: number, seed = 1): Vec3Series {
   const random = createRandom(seed);
@@ -76,15 +87,31 @@ function runStep(step: Step, series: Vec3Series): void {
 
 /**
  * Child: build the samples, warm up on another set of up to 100,000 (except the cold step, so
- * that the compiled code has seen the long-capture paths too), then time one run.
+ * that the compiled code has seen the long-capture paths too), then time REPEATS runs (one
+ * for the cold step).
  */
 function measure(step: Step, n: number): Measurement {
-  if (step !== "fit-cold" && step !== "data") runStep(step, samples(Math.min(n, 100_000), 2));
+  const cold = step === "fit-cold";
+  if (!cold && step !== "data") runStep(step, samples(Math.min(n, 100_000), 2));
   const series = samples(n);
-  const start = performance.now();
-  runStep(step, series);
-  const seconds = (performance.now() - start) / 1000;
-  return { step, samples: n, seconds, peakRssMiB: process.resourceUsage().maxRSS / 1024 };
+  const runs: { wall: number; cpu: number }[] = [];
+  for (let r = 0; r < (cold || step === "data" ? 1 : REPEATS); r++) {
+    const cpuStart = process.cpuUsage();
+    const start = performance.now();
+    runStep(step, series);
+    const wall = (performance.now() - start) / 1000;
+    const cpu = process.cpuUsage(cpuStart);
+    runs.push({ wall, cpu: (cpu.user + cpu.system) / 1e6 });
+  }
+  runs.sort((a, b) => a.wall - b.wall);
+  return {
+    step,
+    samples: n,
+    seconds: runs[0].wall,
+    medianSeconds: runs[Math.floor(runs.length / 2)].wall,
+    cpuSeconds: runs[0].cpu,
+    peakRssMiB: process.resourceUsage().maxRSS / 1024,
+  };
 }
 
 function thisFile(): string {
@@ -104,19 +131,43 @@ function runChild(step: Step, n: number): Measurement {
 
 const pad = (text: string, width: number) => (text.length >= width ? text : " ".repeat(width - text.length) + text);
 
+const COLUMNS: [string, number][] = [
+  ["step", 24],
+  ["samples", 10],
+  ["best s", 8],
+  ["median s", 9],
+  ["cpu s", 7],
+  ["samples/s", 12],
+  ["peak MiB", 9],
+  ["above data", 11],
+];
+
+function row(cells: string[]): string {
+  return cells.map((cell, i) => pad(cell, COLUMNS[i][1])).join(" ") + "\n";
+}
+
 /** Prints the table of samples/s and peak memory per step and size; returns nothing. */
 export function benchEllipsoidFit(): void {
-  process.stdout.write(`node ${process.version}, one core, each row a fresh process\n`);
   process.stdout.write(
-    `${pad("step", 24)} ${pad("samples", 10)} ${pad("seconds", 9)} ${pad("samples/s", 12)} ${pad("peak MiB", 9)} ${pad("above data", 11)}\n`,
+    `node ${process.version}, one core, each row a fresh process; fastest and median of ${REPEATS} runs after a warm-up\n`,
   );
+  process.stdout.write(row(COLUMNS.map(([title]) => title)));
   for (const n of SIZES) {
     const data = runChild("data", n);
     for (const step of STEPS) {
       const m = step === "data" ? data : runChild(step, n);
-      const isData = step === "data";
+      const timed = step !== "data";
       process.stdout.write(
-        `${pad(LABELS[step], 24)} ${pad(n.toLocaleString("en-GB"), 10)} ${pad(isData ? "" : m.seconds.toFixed(3), 9)} ${pad(isData ? "" : Math.round(n / m.seconds).toLocaleString("en-GB"), 12)} ${pad(m.peakRssMiB.toFixed(0), 9)} ${pad(isData ? "" : (m.peakRssMiB - data.peakRssMiB).toFixed(0), 11)}\n`,
+        row([
+          LABELS[step],
+          n.toLocaleString("en-GB"),
+          timed ? m.seconds.toFixed(3) : "",
+          timed ? m.medianSeconds.toFixed(3) : "",
+          timed ? m.cpuSeconds.toFixed(3) : "",
+          timed ? Math.round(n / m.seconds).toLocaleString("en-GB") : "",
+          m.peakRssMiB.toFixed(0),
+          timed ? (m.peakRssMiB - data.peakRssMiB).toFixed(0) : "",
+        ]),
       );
     }
   }

@@ -7,6 +7,7 @@
  * motor-current capture that cannot be sent before the safety cautions are confirmed.
  * Every capture is invented by the simulator; the site's field is the World Magnetic Model's.
  */
+import { createRequire } from "node:module";
 import { afterAll, beforeAll, describe, expect, inject, test } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { magneticReference } from "@/geometry/magnetic-reference";
@@ -95,6 +96,23 @@ async function recordedProgress(): Promise<Record<string, number[]>> {
   return page.evaluate(() => (window as unknown as { __progress: Record<string, number[]> }).__progress);
 }
 
+/** WCAG 2 A and AA violations axe-core finds in the upload form, as "rule: element" lines. */
+async function accessibilityViolations(): Promise<string[]> {
+  await page.addScriptTag({ path: createRequire(import.meta.url).resolve("axe-core/axe.min.js") });
+  return page.evaluate(async () => {
+    const axe = (
+      window as unknown as {
+        axe: { run: (context: unknown, options: unknown) => Promise<{ violations: { id: string; nodes: { target: string[] }[] }[] }> };
+      }
+    ).axe;
+    const result = await axe.run(
+      { include: [["form[aria-label='Start a run']"]] },
+      { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa"] } },
+    );
+    return result.violations.flatMap((v) => v.nodes.map((n) => `${v.id}: ${n.target.join(" ")}`));
+  });
+}
+
 async function runsTotal(): Promise<number> {
   const response = await page.request.get(`${api}/runs`);
   return ((await response.json()) as { total: number }).total;
@@ -177,6 +195,7 @@ describe("the upload page", () => {
     expect(await page.getByLabel("Magnetometer model").inputValue()).toBe("auto");
     expect(await page.getByTestId("motor-cautions").count()).toBe(0);
     await page.screenshot({ path: artefactPath("upload-form.png"), fullPage: true });
+    expect(await accessibilityViolations()).toEqual([]);
 
     // Uploads are slowed to about 300 kB/s, so the bar has bytes in flight to count.
     const devtools = await context.newCDPSession(page);
@@ -246,6 +265,7 @@ describe("the upload page", () => {
     expect(text).toContain("n/a");
     expect(await failure.locator("dd").allTextContents()).toEqual(["500", "mag0.y"]);
     expect(text).toContain("original file was kept");
+    await page.screenshot({ path: artefactPath("upload-failed.png"), fullPage: true });
     expect(await page.getByTestId("processing-progress").getAttribute("aria-valuenow")).toBe("100");
     // The kept original can be fetched back.
     const runId = new URL(page.url()).searchParams.get("run")!;
@@ -356,5 +376,6 @@ describe("the upload page", () => {
       Object.fromEntries(fields.map((f) => [names[f], f])),
     );
     expect(await runsTotal()).toBe(before);
+    await page.screenshot({ path: artefactPath("upload-errors.png"), fullPage: true });
   });
 });

@@ -24,7 +24,7 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
         revokedAt: DataTypes.DATE,
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "api_tokens", updatedAt: false },
+      { sequelize, modelName: "ApiToken", tableName: "api_tokens", updatedAt: false },
     );
   }
 }

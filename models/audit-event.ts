@@ -25,7 +25,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         ipAddress: DataTypes.STRING(64),
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "audit_events", updatedAt: false },
+      { sequelize, modelName: "AuditEvent", tableName: "audit_events", updatedAt: false },
     );
   }
 }

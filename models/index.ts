@@ -14,7 +14,10 @@ import { User } from "./user";
 import { Vehicle } from "./vehicle";
 import { Workspace } from "./workspace";
 
-/** Define every model on one Sequelize instance and wire their associations. */
+/**
+ * Define every model on one Sequelize instance and wire their associations. Each model names
+ * itself (modelName) so the production build's minified class names never reach SQL aliases.
+ */
 export function initModels(sequelize: Sequelize) {
   for (const model of [
     User,

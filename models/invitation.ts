@@ -32,7 +32,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "invitations" },
+      { sequelize, modelName: "Invitation", tableName: "invitations" },
     );
   }
 }

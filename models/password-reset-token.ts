@@ -19,7 +19,7 @@ export class PasswordResetToken extends Model<InferAttributes<PasswordResetToken
         usedAt: DataTypes.DATE,
         createdAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "password_reset_tokens", updatedAt: false },
+      { sequelize, modelName: "PasswordResetToken", tableName: "password_reset_tokens", updatedAt: false },
     );
   }
 }

@@ -13,7 +13,7 @@ export class RunSensor extends Model<InferAttributes<RunSensor>, InferCreationAt
         sensorId: { type: DataTypes.UUID, primaryKey: true },
         slot: { type: DataTypes.STRING(12), allowNull: false },
       },
-      { sequelize, tableName: "run_sensors", timestamps: false },
+      { sequelize, modelName: "RunSensor", tableName: "run_sensors", timestamps: false },
     );
   }
 }

@@ -43,7 +43,7 @@ export class RunVersion extends Model<InferAttributes<RunVersion>, InferCreation
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "run_versions" },
+      { sequelize, modelName: "RunVersion", tableName: "run_versions" },
     );
   }
 }

@@ -52,6 +52,7 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare signedOffAt: CreationOptional<Date | null>;
   declare signedOffById: CreationOptional<string | null>;
   declare signOffComment: CreationOptional<string | null>;
+  declare signedOffVersionId: CreationOptional<string | null>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -97,12 +98,13 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         signedOffAt: DataTypes.DATE,
         signedOffById: DataTypes.UUID,
         signOffComment: DataTypes.TEXT,
+        signedOffVersionId: DataTypes.UUID,
         deletedAt: DataTypes.DATE,
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
       // Soft delete: Sequelize's paranoid mode filters deleted_at IS NULL everywhere.
-      { sequelize, tableName: "runs", paranoid: true },
+      { sequelize, modelName: "Run", tableName: "runs", paranoid: true },
     );
   }
 }

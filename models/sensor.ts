@@ -32,7 +32,7 @@ export class Sensor extends Model<InferAttributes<Sensor>, InferCreationAttribut
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "sensors" },
+      { sequelize, modelName: "Sensor", tableName: "sensors" },
     );
   }
 }

@@ -27,7 +27,7 @@ export class Site extends Model<InferAttributes<Site>, InferCreationAttributes<S
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "sites" },
+      { sequelize, modelName: "Site", tableName: "sites" },
     );
   }
 }

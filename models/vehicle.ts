@@ -31,7 +31,7 @@ export class Vehicle extends Model<InferAttributes<Vehicle>, InferCreationAttrib
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "vehicles" },
+      { sequelize, modelName: "Vehicle", tableName: "vehicles" },
     );
   }
 }

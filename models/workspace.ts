@@ -19,7 +19,7 @@ export class Workspace extends Model<InferAttributes<Workspace>, InferCreationAt
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: "workspaces" },
+      { sequelize, modelName: "Workspace", tableName: "workspaces" },
     );
   }
 }

@@ -69,6 +69,7 @@ export interface RunDetail extends RunSummary {
   currentVersionId: string | null;
   signedOffByName: string | null;
   signOffComment: string | null;
+  signedOffVersionId: string | null;
 }
 
 type RunRow = Run & { vehicle?: Vehicle; uploadedBy?: User | null; signedOffBy?: User | null };
@@ -315,6 +316,7 @@ export async function getRunDetail(workspaceId: string, id: string): Promise<Run
     currentVersionId: run.currentVersionId ?? null,
     signedOffByName: run.signedOffBy?.name ?? null,
     signOffComment: run.signOffComment ?? null,
+    signedOffVersionId: run.signedOffVersionId ?? null,
   };
 }
 
@@ -347,6 +349,7 @@ export async function getRunFileKeys(
 export async function deleteRun(workspaceId: string, actorId: string, runId: string): Promise<boolean> {
   const run = await db().models.Run.findOne({ where: { workspaceId, id: runId } });
   if (!run) return false;
+  if (run.signedOffAt) throw new UserFacingError("A signed-off run is part of the record and cannot be deleted.");
   await run.destroy();
   await recordAudit({ workspaceId, actorId, action: "run.deleted", targetType: "run", targetId: runId, detail: { file: run.fileName } });
   return true;
@@ -417,4 +420,30 @@ export async function listRuns(
     distinct: true,
   });
   return { items: (rows as RunRow[]).map(toSummary), total: count };
+}
+
+/**
+ * The latest earlier finished run that shares a magnetometer (or, failing that, any sensor)
+ * with this one: what "the previous calibration of this sensor" means on the run page.
+ */
+export async function getPreviousRun(workspaceId: string, runId: string): Promise<{ run: RunSummary; results: Record<string, unknown>; slot: string; sensorId: string } | null> {
+  const { models, sequelize } = db();
+  const run = await models.Run.findOne({ where: { workspaceId, id: runId } });
+  if (!run) return null;
+  const slots = await models.RunSensor.findAll({ where: { runId }, order: [["slot", "ASC"]] });
+  const ordered = [...slots.filter((s) => s.slot.startsWith("mag")), ...slots.filter((s) => !s.slot.startsWith("mag"))];
+  for (const slot of ordered) {
+    const [rows] = (await sequelize.query(
+      `SELECT r.id, rs.slot FROM runs r JOIN run_sensors rs ON rs.run_id = r.id
+        WHERE r.workspace_id = :workspaceId AND rs.sensor_id = :sensorId AND r.id <> :runId AND r.deleted_at IS NULL
+          AND r.status = 'done' AND (r.captured_on < :capturedOn OR (r.captured_on = :capturedOn AND r.created_at < :createdAt))
+        ORDER BY r.captured_on DESC, r.created_at DESC LIMIT 1`,
+      { replacements: { workspaceId, sensorId: slot.sensorId, runId, capturedOn: run.capturedOn, createdAt: run.createdAt } },
+    )) as [{ id: string; slot: string }[], unknown];
+    if (rows.length === 0) continue;
+    const summary = await getRunSummary(workspaceId, rows[0].id);
+    const results = await getRunResults(workspaceId, rows[0].id);
+    if (summary && results) return { run: summary, results: results.results, slot: rows[0].slot, sensorId: slot.sensorId };
+  }
+  return null;
 }

@@ -82,6 +82,7 @@ interface WorkspaceRouteCase {
   body?: () => Record<string, unknown>;
   /** A key the permitted answer must carry. */
   dataKey?: string;
+  query?: string;
 }
 
 const EDITORS: Role[] = ["owner", "technician", "builder"];
@@ -230,6 +231,14 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
     expect: expectFor(302, VIEWERS, { student: 404 }),
     params: runParams,
   },
+  {
+    file: "app/api/workspaces/[slug]/runs/[runId]/export/route.ts",
+    method: "GET",
+    expect: expectFor(200, VIEWERS, { student: 404 }),
+    params: runParams,
+    query: "?format=correction-json",
+    dataKey: "magnetometers",
+  },
   // Last: re-processing makes the run's current version a queued one.
   {
     file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts",
@@ -305,7 +314,7 @@ describe.each(WORKSPACE_ROUTES)("$method $file", (c) => {
     const extra = c.params ? await c.params() : {};
     actAsActor(actor);
     const handler = await route(c.file, c.method);
-    const request = new Request(`http://test.local/api/workspaces/${workspace.slug}`, {
+    const request = new Request(`http://test.local/api/workspaces/${workspace.slug}${c.query ?? ""}`, {
       method: c.method,
       headers: { "content-type": "application/json" },
       body: c.body ? JSON.stringify(c.body()) : undefined,
@@ -370,7 +379,24 @@ async function freshMember(): Promise<Record<string, string>> {
   return { membershipId: membership!.id };
 }
 
+/** A run uploaded and processed by the owner, ready to be signed off. */
+async function freshProcessedRun(): Promise<Record<string, string>> {
+  const { uploadRun, simulatedCsv } = await import("../support/runs");
+  const { processRunVersion } = await import("@/lib/jobs/process-run-version");
+  actAs(users.owner.id);
+  const { runId } = await uploadRun(workspace, { vehicleId: fixtures.vehicleId, csv: simulatedCsv({ seed: 9, pathSeconds: 20 }) });
+  const run = await db().models.Run.findByPk(runId);
+  await processRunVersion(run!.currentVersionId!);
+  return { runId, versionId: run!.currentVersionId!, comment: "Checked on the bench." };
+}
+
 const WORKSPACE_ACTIONS: WorkspaceActionCase[] = [
+  {
+    name: "sign-off-run",
+    allowed: ["owner", "technician"],
+    input: freshProcessedRun,
+    changed: async (input) => (await db().models.Run.findByPk(input.runId))!.signedOffVersionId === input.versionId,
+  },
   {
     name: "update-workspace",
     allowed: ["owner"],

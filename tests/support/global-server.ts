@@ -23,7 +23,8 @@ export default async function setup(project: TestProject) {
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     NODE_ENV: "production",
-    NEXT_DIST_DIR: ".next-test",
+    // Its own build folder, so a running `npm start` is untouched; override to run two suites at once.
+    NEXT_DIST_DIR: process.env.NEXT_DIST_DIR ?? ".next-test",
     APP_URL: baseUrl,
     LOXODROME_INSECURE_COOKIES: "1",
     LOXODROME_ALLOW_DEV_SECRET: "1",

@@ -1,73 +1,29 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { useEffect, useMemo, useRef, useState, type FormEvent } from "react";
+import { useMemo, useRef, useState, type FormEvent } from "react";
 import { ApiError, apiFetch } from "@/lib/api-client";
 import type { SensorSummary } from "@/lib/data/sensors";
 import type { SiteSummary } from "@/lib/data/sites";
-import { UPLOAD_LIMITS } from "@/lib/fleet-terms";
 import {
   firstNonNumbers,
   recognisedMapping,
   reviewMapping,
   suggestSlotSensors,
-  type ColumnChoice,
   type ColumnMapping,
   type UnitQuantity,
 } from "./capture-mapping";
 import { CaptureDetails, type CaptureDetailsValues, type VehicleChoice } from "./capture-details";
+import { ColumnSection } from "./column-section";
 import { FileDrop, refuseFile } from "./file-drop";
 import { MotorSafety } from "./motor-safety";
-import { PreviewTable } from "./preview-table";
 import type { FilePreview } from "./preview-types";
-import { putFile, type FileTransfer, type UploadTicket } from "./put-file";
 import { readPreview } from "./read-preview";
-import { RunProgress, type TransferState } from "./run-progress";
-import { UnitFields } from "./unit-fields";
-
-type Phase =
-  | { kind: "form" }
-  | { kind: "creating" }
-  | { kind: "sending"; runId: string; fileName: string; transfer: TransferState; retry: "put" | "confirm" | null }
-  | { kind: "processing"; runId: string; fileName: string | null; transfer: TransferState | null };
-
-interface CreateRunReply {
-  run: { id: string };
-  upload: UploadTicket;
-}
-
-/** Error keys the form shows beside a field; any other key from the API goes in the summary. */
-const PLACED_KEYS =
-  /^(vehicleId|siteId|capturedOn|title|model|safetyAcknowledged|fileName|fileSize|sensorSlots(\..*)?|units\.\w+|columnMapping(\..*)?)$/;
+import { RunProgress } from "./run-progress";
+import { checkRunForm, localToday, runRequestBody, unplacedErrors, type RunFormValues } from "./run-request";
+import { useRunUpload } from "./use-run-upload";
 
 const NO_SENSORS: SensorSummary[] = [];
-/** Longest column name the API takes in a mapping. */
-const MAX_COLUMN_NAME = 120;
-
-/** Today in the browser's own time zone, as YYYY-MM-DD. */
-function localToday(): string {
-  const now = new Date();
-  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, "0")}-${String(now.getDate()).padStart(2, "0")}`;
-}
-
-/**
- * Every column's meaning, stated, so the server reads the file as previewed. A left-out column
- * whose name is longer than the API accepts as a key is not listed: nothing would read it anyway.
- */
-function explicitMapping(headers: string[], mapping: ColumnMapping): ColumnMapping {
-  const stated: ColumnMapping = {};
-  for (const header of headers) {
-    const choice = mapping[header] ?? "ignore";
-    if (choice !== "ignore" || header.length <= MAX_COLUMN_NAME) stated[header] = choice;
-  }
-  return stated;
-}
-
-function positiveScale(unit: string): boolean {
-  if (!unit.startsWith("counts:")) return true;
-  const scale = Number(unit.slice("counts:".length));
-  return Number.isFinite(scale) && scale > 0;
-}
 
 /**
  * Starts a run: pick a file, check its preview and mapping, say which vehicle, sensors, site
@@ -90,7 +46,6 @@ export function RunUploader({
   sites: SiteSummary[];
   resumeRunId: string | null;
 }) {
-  const api = `/api/workspaces/${slug}`;
   const [file, setFile] = useState<File | null>(null);
   const [fileError, setFileError] = useState<string | undefined>();
   const [preview, setPreview] = useState<FilePreview | null>(null);
@@ -110,20 +65,18 @@ export function RunUploader({
   const [acknowledged, setAcknowledged] = useState(false);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [formError, setFormError] = useState<string | null>(null);
-  const [phase, setPhase] = useState<Phase>(
-    resumeRunId ? { kind: "processing", runId: resumeRunId, fileName: null, transfer: null } : { kind: "form" },
-  );
   const pickCount = useRef(0);
-  const ticket = useRef<UploadTicket | null>(null);
-  const transfer = useRef<FileTransfer | null>(null);
+  const upload = useRunUpload(slug, resumeRunId);
+  const { phase } = upload;
 
   const vehicle = useQuery({
     queryKey: ["vehicle", slug, details.vehicleId],
-    queryFn: () => apiFetch<{ sensors: SensorSummary[] }>(`${api}/vehicles/${details.vehicleId}`),
+    queryFn: () => apiFetch<{ sensors: SensorSummary[] }>(`/api/workspaces/${slug}/vehicles/${details.vehicleId}`),
     enabled: details.vehicleId !== "",
   });
   const sensors = details.vehicleId ? vehicle.data?.sensors : NO_SENSORS;
 
+  // What the form shows is derived from the file and the person's choices; only overrides are kept in state.
   const review = useMemo(() => (preview ? reviewMapping(preview.headers, mapping) : null), [preview, mapping]);
   const nonNumbers = useMemo(() => (preview ? firstNonNumbers(preview.headers, preview.rows, mapping) : {}), [preview, mapping]);
   const suggestedSlots = useMemo(
@@ -131,25 +84,11 @@ export function RunUploader({
     [review, sensors],
   );
   const slotSensors = { ...suggestedSlots, ...slotChoices };
-  const currentSlots = review ? [...review.slots.mag, ...review.slots.accel, ...review.slots.gyro] : [];
   const units: Partial<Record<UnitQuantity, string>> = {};
   for (const quantity of review?.quantities ?? []) units[quantity] = unitChoices[quantity] ?? review?.unitHints[quantity] ?? "";
   const powersMotors = motorsTicked || Boolean(review?.hasMotorColumn);
 
-  // Leaving the page mid-upload would lose the file's way to storage; the browser asks first.
-  const sending = phase.kind === "sending" && phase.transfer.state === "sending";
-  useEffect(() => {
-    if (!sending) return;
-    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
-    window.addEventListener("beforeunload", warn);
-    return () => window.removeEventListener("beforeunload", warn);
-  }, [sending]);
-
-  function takeFile(picked: File) {
-    const refusal = refuseFile(picked);
-    pickCount.current += 1;
-    setFile(refusal ? null : picked);
-    setFileError(refusal ?? undefined);
+  function clearChoices() {
     setPreview(null);
     setPreviewError(null);
     setMapping({});
@@ -157,6 +96,14 @@ export function RunUploader({
     setSlotChoices({});
     setErrors({});
     setFormError(null);
+  }
+
+  function takeFile(picked: File) {
+    const refusal = refuseFile(picked);
+    pickCount.current += 1;
+    setFile(refusal ? null : picked);
+    setFileError(refusal ?? undefined);
+    clearChoices();
     if (refusal) return;
     const token = pickCount.current;
     readPreview(picked).then(
@@ -177,164 +124,62 @@ export function RunUploader({
     setErrors(({ [field]: _dropped, ...rest }) => rest);
   }
 
-  function checkForm(): Record<string, string> {
-    const found: Record<string, string> = {};
-    if (!file) found.fileName = "Choose the capture file first.";
-    else if (!preview) found.fileName = previewError ?? "The preview is still being read; wait a moment.";
-    else if (preview.headers.length > UPLOAD_LIMITS.maxColumns)
-      found.fileName = `The file has ${preview.headers.length} columns; the limit is ${UPLOAD_LIMITS.maxColumns}.`;
-    if (review && review.problems.length > 0) found.columnMapping = review.problems[0];
-    for (const header of preview?.headers ?? []) {
-      if (header.length > MAX_COLUMN_NAME && (mapping[header] ?? "ignore") !== "ignore") {
-        found[`columnMapping.${header}`] =
-          `Only columns with names up to ${MAX_COLUMN_NAME} characters can be mapped; shorten this one in the file.`;
-      }
-    }
-    if (!details.vehicleId) found.vehicleId = "Choose the vehicle this capture comes from.";
-    if (!/^\d{4}-\d{2}-\d{2}$/.test(details.capturedOn)) found.capturedOn = "Give the capture date.";
-    for (const [quantity, unit] of Object.entries(units)) {
-      if (!positiveScale(unit)) found[`units.${quantity}`] = "Give the scale per count as a positive number, such as 0.15.";
-    }
-    if (powersMotors && !acknowledged) found.safetyAcknowledged = "This capture powers the motors: confirm the cautions before uploading.";
-    return found;
-  }
-
   async function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const found = checkForm();
+    const form: RunFormValues = {
+      file,
+      preview,
+      previewError,
+      review,
+      mapping,
+      units,
+      slotSensors,
+      ...details,
+      powersMotors,
+      acknowledged,
+    };
+    const found = checkRunForm(form);
     setErrors(found);
     if (Object.keys(found).length > 0 || !file || !preview) {
       setFormError("Some things need attention before the upload; each is marked where it is.");
       return;
     }
     setFormError(null);
-    setPhase({ kind: "creating" });
-    let created: CreateRunReply;
-    try {
-      created = await apiFetch<CreateRunReply>(`${api}/runs`, {
-        method: "POST",
-        json: {
-          vehicleId: details.vehicleId,
-          siteId: details.siteId || null,
-          capturedOn: details.capturedOn,
-          title: details.title.trim(),
-          fileName: file.name,
-          fileSize: file.size,
-          columnMapping: explicitMapping(preview.headers, mapping),
-          units: Object.fromEntries(Object.entries(units).filter(([, unit]) => unit !== "")),
-          sensorSlots: Object.fromEntries(currentSlots.filter((slot) => slotSensors[slot]).map((slot) => [slot, slotSensors[slot]])),
-          model: details.model,
-          powersMotors,
-          safetyAcknowledged: powersMotors && acknowledged,
-        },
-      });
-    } catch (error) {
-      setPhase({ kind: "form" });
-      if (error instanceof ApiError) {
-        setErrors(error.fields);
-        const unplaced = Object.entries(error.fields).filter(([key]) => !PLACED_KEYS.test(key));
-        setFormError([error.message, ...unplaced.map(([key, message]) => `${key}: ${message}`)].join(" "));
-      } else setFormError("The server could not be reached. Check the connection and try again.");
-      return;
-    }
-    ticket.current = created.upload;
-    send(created.run.id, file);
-  }
-
-  function send(runId: string, picked: File) {
-    const progress = (sentBytes: number, totalBytes: number) =>
-      setPhase((current) =>
-        current.kind === "sending" && current.runId === runId
-          ? { ...current, transfer: { sentBytes, totalBytes, state: "sending" } }
-          : current,
-      );
-    setPhase({
-      kind: "sending",
-      runId,
-      fileName: picked.name,
-      transfer: { sentBytes: 0, totalBytes: picked.size, state: "sending" },
-      retry: null,
-    });
-    const started = putFile(ticket.current!, picked, progress);
-    transfer.current = started;
-    started.done.then(
-      () => markUploaded(runId, picked),
-      (error: Error) => {
-        if (error.name === "AbortError") return;
-        setPhase((current) =>
-          current.kind === "sending"
-            ? {
-                ...current,
-                transfer: { ...current.transfer, state: "stalled", message: `${error.message} The run is kept; try again.` },
-                retry: "put",
-              }
-            : current,
-        );
-      },
-    );
-  }
-
-  async function markUploaded(runId: string, picked: File) {
-    const sent: TransferState = { sentBytes: picked.size, totalBytes: picked.size, state: "sent" };
-    try {
-      await apiFetch(`${api}/runs/${runId}/uploaded`, { method: "POST" });
-    } catch (error) {
-      const message = error instanceof ApiError ? error.message : "The server could not be reached to start the processing.";
-      setPhase({ kind: "sending", runId, fileName: picked.name, transfer: { ...sent, state: "stalled", message }, retry: "confirm" });
-      return;
-    }
-    window.history.replaceState(null, "", `?run=${runId}`);
-    setPhase({ kind: "processing", runId, fileName: picked.name, transfer: sent });
-  }
-
-  async function cancel(runId: string) {
-    transfer.current?.abort();
-    // The run never got its file; it is removed so it does not linger in the list.
-    await apiFetch(`${api}/runs/${runId}`, { method: "DELETE" }).catch(() => undefined);
-    setPhase({ kind: "form" });
-    setFormError("The upload was cancelled; nothing was kept.");
+    const refusal = await upload.start(runRequestBody({ ...form, file, preview }), file);
+    if (refusal instanceof ApiError) {
+      setErrors(refusal.fields);
+      setFormError([refusal.message, ...unplacedErrors(refusal.fields)].join(" "));
+    } else if (refusal) setFormError("The server could not be reached. Check the connection and try again.");
   }
 
   function startOver() {
-    window.history.replaceState(null, "", window.location.pathname);
+    upload.reset();
     pickCount.current += 1;
     setFile(null);
     setFileError(undefined);
-    setPreview(null);
-    setPreviewError(null);
-    setMapping({});
-    setUnitChoices({});
-    setSlotChoices({});
+    clearChoices();
     setMotorsTicked(false);
     setAcknowledged(false);
-    setErrors({});
-    setFormError(null);
     setDetails((current) => ({ ...current, title: "" }));
-    setPhase({ kind: "form" });
   }
 
   if (phase.kind === "sending" || phase.kind === "processing") {
-    const { runId } = phase;
     return (
       <RunProgress
         slug={slug}
-        runId={runId}
+        runId={phase.runId}
         fileName={phase.fileName}
         transfer={phase.transfer}
-        onRetry={
-          phase.kind === "sending" && file
-            ? () => (phase.retry === "confirm" ? void markUploaded(runId, file) : send(runId, file))
+        onRetry={phase.kind === "sending" && file ? () => upload.retry(file) : undefined}
+        onCancel={
+          phase.kind === "sending"
+            ? () => void upload.cancel().then(() => setFormError("The upload was cancelled; nothing was kept."))
             : undefined
         }
-        onCancel={phase.kind === "sending" ? () => void cancel(runId) : undefined}
         onStartOver={startOver}
       />
     );
   }
-
-  const columnErrors: Record<string, string> = { ...review?.columnProblems };
-  for (const [key, message] of Object.entries(errors))
-    if (key.startsWith("columnMapping.")) columnErrors[key.slice("columnMapping.".length)] = message;
 
   return (
     <form onSubmit={submit} noValidate aria-label="Start a run" className="space-y-6">
@@ -356,49 +201,17 @@ export function RunUploader({
           <h2 id="preview-heading" className="text-lg font-semibold">
             2. What each column holds
           </h2>
-          {previewError ? (
-            <p role="alert" className="rounded-lg border border-halt/30 bg-halt-soft px-3 py-2 text-sm">
-              {previewError}
-            </p>
-          ) : !preview || !review ? (
-            <p role="status" className="text-sm text-chart-muted">
-              Reading the first rows…
-            </p>
-          ) : (
-            <>
-              <PreviewTable
-                preview={preview}
-                mapping={mapping}
-                onChange={(header: string, choice: ColumnChoice) => setMapping((m) => ({ ...m, [header]: choice }))}
-                columnErrors={columnErrors}
-                nonNumbers={nonNumbers}
-              />
-              {review.problems.length > 0 ? (
-                <ul
-                  role="alert"
-                  className="space-y-1 rounded-lg border border-halt/30 bg-halt-soft px-3 py-2 text-sm"
-                  data-testid="mapping-problems"
-                >
-                  {review.problems.map((problem) => (
-                    <li key={problem}>{problem}</li>
-                  ))}
-                </ul>
-              ) : null}
-              {errors.columnMapping && review.problems.length === 0 ? (
-                <p role="alert" className="text-sm font-medium text-halt dark:text-red-300">
-                  {errors.columnMapping}
-                </p>
-              ) : null}
-              <h3 className="pt-2 font-semibold">Units as logged</h3>
-              <UnitFields
-                quantities={review.quantities}
-                values={units}
-                hints={review.unitHints}
-                errors={errors}
-                onChange={(quantity, value) => setUnitChoices((current) => ({ ...current, [quantity]: value }))}
-              />
-            </>
-          )}
+          <ColumnSection
+            preview={preview}
+            previewError={previewError}
+            review={review}
+            mapping={mapping}
+            onMappingChange={(header, choice) => setMapping((current) => ({ ...current, [header]: choice }))}
+            nonNumbers={nonNumbers}
+            units={units}
+            onUnitChange={(quantity, value) => setUnitChoices((current) => ({ ...current, [quantity]: value }))}
+            errors={errors}
+          />
         </section>
       ) : null}
 

@@ -10,7 +10,7 @@
  * 4. fit the three models on the kept samples and choose one (magnetometer-models);
  * 5. 95% intervals by a seeded bootstrap (bootstrap);
  * 6. clipping and quantisation (saturation);
- * 7. coverage of the corrected field directions (sphere-coverage).
+ * 7. coverage of the corrected field directions, in body axes (sphere-coverage).
  * Units: whatever the field is given in (µT after unit conversion); every length-like
  * output is in the same units.
  */
@@ -30,6 +30,7 @@ import { fitWithOutlierRejection, type RobustFit } from "./outlier-rejection";
 import { analyseSaturation } from "./saturation";
 import { sphereCoverage } from "./sphere-coverage";
 import type { Interval95, Mat3, Vec3, Vec3Series } from "./types";
+import { identity3, mulMat } from "./vector";
 
 /** Usable samples needed per model parameter. */
 export const SAMPLES_PER_PARAMETER = 10;
@@ -64,22 +65,24 @@ function finiteMask(field: Vec3Series): { mask: Uint8Array; count: number } {
   return { mask, count };
 }
 
+/** Coverage in body axes of the directions `correction` gives, over the samples in `mask`. */
+function coverageOf(
+  field: Vec3Series,
+  correction: { hardIronOffset: Vec3; softIronMatrix: Mat3 },
+  mask: Uint8Array,
+  options: CalibrateMagnetometerOptions,
+): CoverageResult {
+  // Only directions count, so rotating after the correction is one matrix: M·W(x − b).
+  const toBody = options.mountingRotation ? mulMat(options.mountingRotation, correction.softIronMatrix) : correction.softIronMatrix;
+  const directions = applyCorrection({ hardIronOffset: correction.hardIronOffset, softIronMatrix: toBody }, field);
+  return sphereCoverage(directions, { mask, minSamplesPerCell: options.minSamplesPerCell, inclinationDeg: options.inclinationDeg });
+}
+
 /** Coverage of raw directions about a rough centre, for refusals (no calibration to correct with). */
-function roughCoverage(field: Vec3Series, eligible: Uint8Array, options: CalibrateMagnetometerOptions): CoverageResult | undefined {
+function roughCoverage(field: Vec3Series, eligible: Uint8Array, options: CalibrateMagnetometerOptions): CoverageResult {
   const rough = fitEllipsoidAlgebraic(field, "sphere", { mask: eligible });
   const centre = rough.ok ? rough.estimate.hardIronOffset : normalisationOf(field, { mask: eligible }).centre;
-  const shifted = applyCorrection(
-    {
-      hardIronOffset: centre,
-      softIronMatrix: [
-        [1, 0, 0],
-        [0, 1, 0],
-        [0, 0, 1],
-      ],
-    },
-    field,
-  );
-  return sphereCoverage(shifted, { mask: eligible, minSamplesPerCell: options.minSamplesPerCell, inclinationDeg: options.inclinationDeg });
+  return coverageOf(field, { hardIronOffset: centre, softIronMatrix: identity3() }, eligible, options);
 }
 
 /** The first model, most flexible first, that fits with outlier rejection. */
@@ -164,7 +167,6 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
     scaleInterval95 = point(scales);
   }
 
-  const corrected = applyCorrection(estimate, field);
   const calibration: MagnetometerCalibration = {
     ok: true,
     model: estimate.model,
@@ -183,11 +185,7 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
     bootstrapResamples,
     candidates: chosen.choice.candidates.map(toCandidate),
     saturation: analyseSaturation(field, eligible),
-    coverage: sphereCoverage(corrected, {
-      mask: inliers,
-      minSamplesPerCell: options.minSamplesPerCell,
-      inclinationDeg: options.inclinationDeg,
-    }),
+    coverage: coverageOf(field, estimate, inliers, options),
   };
   return calibration;
 }

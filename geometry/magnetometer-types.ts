@@ -134,6 +134,12 @@ export interface CalibrateMagnetometerOptions {
   bootstrap?: boolean;
   /** Site inclination (dip) in degrees, positive down, used only to word the next orientation; default 60. */
   inclinationDeg?: number;
+  /**
+   * Rotation from the logged frame to the body frame (v_body = mountingRotation · v_logged), for
+   * a compass that logs in its own axes; used only so that coverage and the next orientation
+   * are given in body axes. Default identity (the log is already in the body frame).
+   */
+  mountingRotation?: Mat3;
 }
 
 /** A named mounting rotation: `v_reference = matrix · v_other`. */

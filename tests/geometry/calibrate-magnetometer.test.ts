@@ -4,7 +4,8 @@ import type { CaptureSpec, MagnetometerCalibration } from "@/geometry/magnetomet
 import { createRandom } from "@/geometry/random";
 import { simulateCapture } from "@/geometry/simulator";
 import type { Vec3Series } from "@/geometry/types";
-import { maxAbsDiff3 } from "@/geometry/vector";
+import { fromYawPitchRoll } from "@/geometry/rotation";
+import { angleBetweenDeg, maxAbsDiff3 } from "@/geometry/vector";
 
 function capture(spec: CaptureSpec) {
   const { table, truth } = simulateCapture({ accelerometer: false, gyro: false, pathSeconds: 40, ...spec });
@@ -127,6 +128,19 @@ describe("calibrateMagnetometer", () => {
     const cal = expectCalibration(calibrateMagnetometer(field, { bootstrap: false }));
     expect(cal.bootstrapResamples).toBe(0);
     cal.offsetInterval95.forEach((interval, i) => expect(interval).toEqual({ low: cal.hardIronOffset[i], high: cal.hardIronOffset[i] }));
+  });
+
+  test("a compass logging in its own axes: the mounting rotation puts coverage and its gap in body axes", () => {
+    // Truth: upper-half path leaves the body's underside (+z) uncovered; the compass is mounted
+    // roll 180 (sensor z up) and logs in its own axes, so unrotated the gap would sit at sensor −z.
+    const roll180 = fromYawPitchRoll(0, 0, 180);
+    const { field } = capture({ seed: 12, path: "upper-half", magnetometers: [{ mountingRotation: roll180, loggedFrame: "sensor" }] });
+    const sensorAxes = expectCalibration(calibrateMagnetometer(field, { bootstrap: false }));
+    const bodyAxes = expectCalibration(calibrateMagnetometer(field, { bootstrap: false, mountingRotation: roll180 }));
+    expect(angleBetweenDeg(sensorAxes.coverage.gapCentre, [0, 0, -1])).toBeLessThan(10);
+    expect(angleBetweenDeg(bodyAxes.coverage.gapCentre, [0, 0, 1])).toBeLessThan(10);
+    expect(bodyAxes.coverage.nextOrientation).toMatch(/underside/);
+    expect(bodyAxes.hardIronOffset).toEqual(sensorAxes.hardIronOffset);
   });
 
   test("the same seed gives the same result", () => {

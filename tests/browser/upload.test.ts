@@ -8,8 +8,8 @@
  * Every capture is invented by the simulator; the site's field is the World Magnetic Model's.
  */
 import { createRequire } from "node:module";
-import { afterAll, beforeAll, describe, expect, inject, test } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
+import { afterAll, afterEach, beforeAll, describe, expect, inject, test } from "vitest";
+import type { Browser, BrowserContext, CDPSession, Page } from "playwright-core";
 import { magneticReference } from "@/geometry/magnetic-reference";
 import type { BodyFace } from "@/geometry/magnetometer-types";
 import { simulateCapture, tableToCsv } from "@/geometry/simulator";
@@ -28,6 +28,7 @@ const SIX_FACES: BodyFace[] = ["+z", "-z", "+x", "-x", "+y", "-y"];
 let browser: Browser;
 let context: BrowserContext;
 let page: Page;
+let devtools: CDPSession | undefined;
 const ids = { vehicle: "", boardMag: "", mastMag: "", accel: "", gyro: "", site: "" };
 
 /** The date the page proposes: today in the browser's (and this machine's) time zone. */
@@ -113,6 +114,13 @@ async function accessibilityViolations(): Promise<string[]> {
   });
 }
 
+/** Slows the page's uploads to `kilobytesPerSecond` through the DevTools protocol; null gives full speed again. */
+async function throttleUploads(kilobytesPerSecond: number | null) {
+  devtools ??= await context.newCDPSession(page);
+  const uploadThroughput = kilobytesPerSecond === null ? -1 : kilobytesPerSecond * 1024;
+  await devtools.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput });
+}
+
 async function runsTotal(): Promise<number> {
   const response = await page.request.get(`${api}/runs`);
   return ((await response.json()) as { total: number }).total;
@@ -154,6 +162,12 @@ beforeAll(async () => {
   ids.accel = await sensor({ kind: "accelerometer", label: "board", placement: "internal", mountingRotation: "none", units: "m/s2" });
   ids.gyro = await sensor({ kind: "gyroscope", label: "board", placement: "internal", mountingRotation: "none", units: "rad/s" });
   ids.site = (await post<{ site: { id: string } }>("/sites", site)).site.id;
+});
+
+// A test that stops half-way leaves neither a slow network nor a stand-in route to the next one.
+afterEach(async () => {
+  await throttleUploads(null);
+  await page.unrouteAll();
 });
 
 afterAll(async () => {
@@ -198,19 +212,12 @@ describe("the upload page", () => {
     expect(await accessibilityViolations()).toEqual([]);
 
     // Uploads are slowed to about 300 kB/s, so the bar has bytes in flight to count.
-    const devtools = await context.newCDPSession(page);
-    await devtools.send("Network.emulateNetworkConditions", {
-      offline: false,
-      latency: 0,
-      downloadThroughput: -1,
-      uploadThroughput: 300 * 1024,
-    });
+    await throttleUploads(300);
     await recordProgress();
     await page.getByRole("button", { name: "Upload and check" }).click();
     const verdict = page.getByTestId("run-verdict");
     await verdict.waitFor({ timeout: 60_000 });
-    await devtools.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
-    await devtools.detach();
+    await throttleUploads(null);
     expect(await verdict.getAttribute("data-verdict")).toBe("pass");
     expect(page.url()).toMatch(/\?run=[0-9a-f-]{36}$/);
     const runId = new URL(page.url()).searchParams.get("run")!;
@@ -243,6 +250,48 @@ describe("the upload page", () => {
     expect(await row.locator("[data-verdict]").getAttribute("data-verdict")).toBe("pass");
     expect(await row.textContent()).toContain("Heron hexacopter");
     expect(await row.textContent()).toContain(site.name);
+  });
+
+  test("an upload cut off on its way to storage is tried again and finishes; a cancelled one leaves no run behind", async () => {
+    const csv = tumbleCsv({ seed: 10 });
+    const before = await runsTotal();
+
+    // The first PUT to storage is cut off; the page says so and offers to try again.
+    let cutOff = 0;
+    await page.route(
+      (url) => url.pathname.includes("/upload/"),
+      async (route) => {
+        if (route.request().method() === "PUT" && cutOff === 0) {
+          cutOff += 1;
+          await route.abort("connectionreset");
+        } else await route.continue();
+      },
+    );
+    await openUploadPage();
+    await pickFile("corrie-retry.csv", csv);
+    await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
+    await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    await expect.poll(() => page.getByRole("alert").filter({ hasText: "dropped during the upload" }).count()).toBe(1);
+    expect(cutOff).toBe(1);
+    await page.getByRole("button", { name: "Try again" }).click();
+    await page.getByTestId("run-verdict").waitFor({ timeout: 60_000 });
+    expect(await runsTotal()).toBe(before + 1);
+
+    // A slow upload cancelled half-way: back to the form, and the run is gone.
+    await page.getByRole("button", { name: "Upload another capture" }).click();
+    expect(new URL(page.url()).search).toBe("");
+    await pickFile("corrie-cancelled.csv", csv);
+    await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
+    await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
+    await throttleUploads(50);
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    await expect
+      .poll(async () => Number(await page.getByTestId("upload-progress").getAttribute("aria-valuenow")), { timeout: 10_000 })
+      .toBeGreaterThan(2);
+    await page.getByRole("button", { name: "Cancel the upload" }).click();
+    await expect.poll(() => page.getByTestId("form-error").textContent()).toContain("The upload was cancelled");
+    expect(await runsTotal()).toBe(before + 1);
   });
 
   test("text in a number column ends the run as failed, naming the row and the column, and the file is kept", async () => {
@@ -354,7 +403,7 @@ describe("the upload page", () => {
     });
     await page.getByRole("button", { name: "Upload and check" }).click();
     await expect.poll(() => page.locator("#run-captured-on-error").textContent()).toBe("Give the capture date as YYYY-MM-DD.");
-    await page.unroute(`${api}/runs`);
+    await page.unrouteAll();
     expect(await page.locator("#unit-magnetic-error").textContent()).toBe("Magnetic unit not recognised.");
     expect(await page.locator("#column-3-error").textContent()).toBe("Map columns to a sensor axis such as mag0.x.");
     expect(await page.locator("#slot-mag0-error").textContent()).toBe("Slot mag0 needs a magnetometer.");

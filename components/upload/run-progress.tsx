@@ -213,7 +213,12 @@ export function RunProgress({
 
       {isTerminal(reply?.status) || lostFile || status.error ? (
         <div className="flex flex-wrap items-center gap-3">
-          <Link href={`/w/${slug}/runs`} className="btn-primary">
+          {isTerminal(reply?.status) ? (
+            <Link href={`/w/${slug}/runs/${runId}`} className="btn-primary">
+              {reply?.status === "done" ? "See every check" : "Open the run"}
+            </Link>
+          ) : null}
+          <Link href={`/w/${slug}/runs`} className={isTerminal(reply?.status) ? "btn-quiet" : "btn-primary"}>
             Open the runs list
           </Link>
           <button type="button" className="btn-quiet" onClick={onStartOver}>

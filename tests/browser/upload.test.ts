@@ -242,6 +242,8 @@ describe("the upload page", () => {
     expect(await page.getByTestId("run-progress").getAttribute("data-run-id")).toBe(runId);
     expect(await page.getByTestId("upload-progress").getAttribute("aria-valuenow")).toBe("100");
 
+    expect(await page.getByRole("link", { name: "See every check" }).getAttribute("href")).toBe(`/w/${slug}/runs/${runId}`);
+
     // The runs list shows it with its verdict.
     await page.getByRole("link", { name: "Open the runs list" }).click();
     await page.waitForURL(`${baseUrl}/w/${slug}/runs`);

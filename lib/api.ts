@@ -52,7 +52,7 @@ async function guarded(work: () => Promise<Response>): Promise<Response> {
   try {
     return await work();
   } catch (error) {
-    if (error instanceof UserFacingError) return jsonError(409, "conflict", error.message);
+    if (error instanceof UserFacingError) return jsonError(409, "conflict", error.message, error.field ? { fields: { [error.field]: error.message } } : undefined);
     console.error("[api] unexpected error", error);
     return jsonError(500, "internal", "Something went wrong on our side.");
   }

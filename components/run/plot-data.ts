@@ -101,9 +101,10 @@ export function slopeSegment(slope: number, inputs: readonly number[]): [{ x: nu
     if (x > high) high = x;
   }
   if (high === low) return null;
+  // "+ 0" turns the −0 of a negative slope at zero input into 0.
   return [
-    { x: low, y: slope * low },
-    { x: high, y: slope * high },
+    { x: low, y: slope * low + 0 },
+    { x: high, y: slope * high + 0 },
   ];
 }
 

@@ -1,6 +1,7 @@
 import type { Check } from "@/geometry/types";
 import { carriesSafetyCaution, checkAnchor } from "./check-groups";
 import { formatMeasured } from "./format";
+import { modelWords } from "./parameter-text";
 import { sensorName } from "./sensor-names";
 import { STATUS_LOOK, StatusChip } from "./status-mark";
 
@@ -40,7 +41,9 @@ export function CheckRow({
         <div className="flex gap-2">
           <dt className="text-chart-muted">Measured</dt>
           <dd className="font-mono font-medium" data-testid="check-measured">
-            {formatMeasured(check.measured, check.unit)}
+            {check.id === "mag.fit" && typeof check.measured === "string"
+              ? modelWords(check.measured)
+              : formatMeasured(check.measured, check.unit)}
           </dd>
         </div>
         <div className="flex gap-2">

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { useId } from "react";
 import { compareRuns, type ChangeDirection, type RunFigures } from "./comparison-figures";
 import { formatNumber, formatSigned, joinUnit } from "./format";
 
@@ -24,14 +25,16 @@ const ARROW: Record<ChangeDirection, { mark: string; words: string }> = {
  * each change signed, with an arrow and its unit, and a link to the previous run.
  */
 export function Comparison({ current, previous, previousHref, sensorName }: ComparisonProps) {
+  // One comparison per compass may sit on the page, so the heading's id must be unique.
+  const headingId = `comparison-${useId()}`;
   const previousName = previous ? [previous.title, previous.capturedOn].filter(Boolean).join(", ") || "the previous run" : null;
   return (
     <section
-      aria-labelledby="comparison-heading"
+      aria-labelledby={headingId}
       className="card break-inside-avoid p-5 print:rounded-none print:border-0 print:p-0 print:shadow-none"
       data-testid="comparison"
     >
-      <h2 id="comparison-heading" className="text-xl font-semibold">
+      <h2 id={headingId} className="text-xl font-semibold">
         Since the previous run{sensorName ? <span className="text-base font-normal text-chart-muted"> · {sensorName}</span> : null}
       </h2>
       {!previous ? (

@@ -18,11 +18,14 @@ export function OrbitRig({ store, target }: { store: OrbitStore; target: Vec3 })
   const camera = useThree((state) => state.camera);
   const invalidate = useThree((state) => state.invalidate);
   const element = useThree((state) => state.gl.domElement);
+  const aspect = useThree((state) => state.size.width / Math.max(1, state.size.height));
+  // A canvas narrower than tall would cut the sides off: step back until the width fits as the height does.
+  const stepBack = Math.max(1, 0.95 / aspect);
   const [tx, ty, tz] = target;
 
   useLayoutEffect(() => {
     const apply = () => {
-      const [x, y, z] = cameraOffset(store.pose);
+      const [x, y, z] = cameraOffset({ ...store.pose, distance: store.pose.distance * stepBack });
       camera.position.set(tx + x, ty + y, tz + z);
       camera.up.set(0, 0, -1);
       camera.lookAt(tx, ty, tz);
@@ -31,7 +34,7 @@ export function OrbitRig({ store, target }: { store: OrbitStore; target: Vec3 })
     };
     apply();
     return store.subscribe(apply);
-  }, [camera, invalidate, store, tx, ty, tz]);
+  }, [camera, invalidate, store, stepBack, tx, ty, tz]);
 
   useEffect(() => bindOrbitInput(element, store), [element, store]);
   return null;

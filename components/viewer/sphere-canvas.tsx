@@ -43,7 +43,6 @@ export function SphereCanvas({ testId, label, hintId, onFail, ...scene }: Sphere
     canvas.setAttribute("aria-describedby", hintId);
     canvas.dataset.testid = testId;
     canvas.style.touchAction = "none";
-    canvas.style.outlineOffset = "-2px";
     const lost = (event: Event) => {
       event.preventDefault();
       onFail();
@@ -61,7 +60,8 @@ export function SphereCanvas({ testId, label, hintId, onFail, ...scene }: Sphere
         camera={{ fov: FOV_DEG, near: 0.01, far: 200 }}
         gl={{ antialias: true, alpha: true, preserveDrawingBuffer: true }}
         onCreated={({ gl }) => gl.setClearColor(0x000000, 0)}
-        className="rounded-lg"
+        // The focus ring goes inside the canvas: the wrapper clips anything drawn outside it.
+        className="rounded-lg [&_canvas:focus-visible]:ring-inset [&_canvas:focus-visible]:ring-offset-0"
       >
         <SphereScene {...scene} />
       </Canvas>

@@ -1,12 +1,32 @@
 import type { RunView } from "@/geometry/run-view";
+import { Plots } from "@/components/run/plots";
+import { plotDataOf } from "@/components/run/plot-data";
+import { CoverageMap } from "@/components/viewer/coverage-map";
+import { SphereViewLoader } from "@/components/viewer/sphere-view-loader";
 
-/** The drawings of a run: the 3D sphere, the flat coverage map and the plots. */
-export function RunViewPanel({ view }: { view: RunView; sensorLabels: Record<string, string> }) {
+/** The drawings of a run: the 3D sphere, the flat coverage map of each compass, and the plots. */
+export function RunViewPanel({ view, sensorLabels, gravityMps2 }: { view: RunView; sensorLabels: Record<string, string>; gravityMps2?: number | null }) {
+  const mapped = view.magnetometers.filter((m) => m.cellCounts);
   return (
-    <section className="card p-5" aria-label="Samples">
-      <p className="text-sm text-chart-muted">
-        {view.sampleCount.toLocaleString("en-GB")} samples; {view.pointsShown.toLocaleString("en-GB")} shown per compass.
-      </p>
-    </section>
+    <div className="space-y-6">
+      {view.magnetometers.length ? (
+        <div className="print:hidden">
+          <SphereViewLoader view={view} sensorLabels={sensorLabels} />
+        </div>
+      ) : null}
+      {mapped.length ? (
+        <section className="card break-inside-avoid space-y-4 p-5" aria-labelledby="coverage-map-heading">
+          <h2 id="coverage-map-heading" className="text-xl font-semibold">
+            Coverage, flat
+          </h2>
+          <div className={mapped.length > 1 ? "grid gap-4 xl:grid-cols-2" : ""}>
+            {mapped.map((m) => (
+              <CoverageMap key={m.sensor} magnetometer={m} sensorLabel={sensorLabels[m.sensor] ? `${m.sensor} · ${sensorLabels[m.sensor]}` : m.sensor} />
+            ))}
+          </div>
+        </section>
+      ) : null}
+      <Plots data={plotDataOf(view)} gravityMps2={gravityMps2} sensorLabels={sensorLabels} />
+    </div>
   );
 }

@@ -81,7 +81,7 @@ export default async function RunPage({ params, searchParams }: { params: Promis
           <VerdictBanner verdict={analysis.verdict} verdictSummary={analysis.verdictSummary} diagnosis={analysis.diagnosis} checks={analysis.checks} sensorLabels={sensorLabels} />
           <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] print:block">
             <div className="min-w-0 space-y-6">
-              {view ? <RunViewPanel view={view} sensorLabels={sensorLabels} /> : <p className="card p-5 text-sm text-chart-muted">No drawing data was kept for this version.</p>}
+              {view ? <RunViewPanel view={view} sensorLabels={sensorLabels} gravityMps2={analysis.reference.gravityMps2} /> : <p className="card p-5 text-sm text-chart-muted">No drawing data was kept for this version.</p>}
             </div>
             <aside className="space-y-4 print:hidden" aria-label="Actions">
               <section className="card space-y-3 p-5" aria-labelledby="sign-off-heading" data-testid="sign-off">

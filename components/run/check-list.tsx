@@ -18,7 +18,7 @@ function Folded({ group, grouping, sensorLabels }: { group: CheckGroup; grouping
   return (
     <details className="mt-2 rounded-lg border border-dashed border-chart-rule px-3 py-2 text-sm" data-testid="folded-checks">
       <summary className="cursor-pointer text-chart-muted">
-        {group.folded.length} check{many ? "s" : ""} could not be made — show why
+        {group.folded.length} check{many ? "s" : ""} could not be made<span className="print:hidden"> — show why</span>
       </summary>
       <ul className="mt-2 space-y-2">
         {group.folded.map((check) => (

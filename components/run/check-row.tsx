@@ -37,10 +37,10 @@ export function CheckRow({
           <span className="text-xs text-chart-muted print:text-chart-ink">{sensorName(check.sensor, sensorLabels)}</span>
         ) : null}
       </div>
-      <dl className="mt-2 grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr] print:mt-0 print:flex print:gap-4 print:text-xs">
+      <dl className="mt-2 grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[auto_1fr] print:mt-0 print:flex print:flex-wrap print:gap-x-4 print:gap-y-0 print:text-xs">
         <div className="flex gap-2">
           <dt className="text-chart-muted">Measured</dt>
-          <dd className="font-mono font-medium" data-testid="check-measured">
+          <dd className="whitespace-nowrap font-mono font-medium" data-testid="check-measured">
             {check.id === "mag.fit" && typeof check.measured === "string"
               ? modelWords(check.measured)
               : formatMeasured(check.measured, check.unit)}

@@ -145,7 +145,10 @@ export function AccelerometerParameters({ accelerometer, name }: { accelerometer
           </dl>
         </>
       ) : (
-        <div className="rounded-lg border border-halt/40 bg-halt-soft p-3 text-sm" data-testid="fit-refused">
+        <div
+          className="rounded-lg border border-halt/40 bg-halt-soft p-3 text-sm print:border-chart-ink print:bg-transparent"
+          data-testid="fit-refused"
+        >
           <p className="font-semibold">No accelerometer calibration was fitted ({calibration.reason.replace(/-/g, " ")}).</p>
           <p className="mt-1">{calibration.detail}</p>
         </div>

@@ -81,7 +81,10 @@ export function MagnetometerParameters({
       </div>
 
       {!calibration.ok ? (
-        <div className="rounded-lg border border-halt/40 bg-halt-soft p-3 text-sm" data-testid="fit-refused">
+        <div
+          className="rounded-lg border border-halt/40 bg-halt-soft p-3 text-sm print:border-chart-ink print:bg-transparent"
+          data-testid="fit-refused"
+        >
           <p className="font-semibold">No calibration was fitted ({calibration.reason.replace(/-/g, " ")}).</p>
           <p className="mt-1">{calibration.detail}</p>
           {calibration.coverage ? (
@@ -94,7 +97,8 @@ export function MagnetometerParameters({
       ) : (
         <>
           <div className="text-sm">
-            <p>
+            {/* On paper the check list's "Calibration fit" already carries the reason. */}
+            <p className="print:hidden">
               <span className="font-medium">Why this model: </span>
               {calibration.modelReason}
             </p>
@@ -134,7 +138,7 @@ export function MagnetometerParameters({
             </table>
           </div>
 
-          <div className="grid gap-4 lg:grid-cols-[2fr_1fr] print:grid-cols-[2fr_1fr]">
+          <div className="grid gap-4 lg:grid-cols-[2fr_1fr] print:grid-cols-[auto_1fr]">
             <table className={TABLE} data-testid="per-axis">
               <caption className="mb-1 text-left text-sm font-medium">
                 Per axis, with 95% intervals from {calibration.bootstrapResamples} bootstrap resamples

@@ -10,7 +10,7 @@ export const TH =
 /** Row header naming a body axis: lower case, as the axes are written everywhere else. */
 export const TH_AXIS =
   "px-2 py-1 text-left font-mono text-sm font-semibold text-chart-muted print:px-1 print:py-0.5 print:text-xs print:text-chart-ink";
-export const TD = "px-2 py-1 font-mono text-sm tabular-nums print:px-1 print:py-0.5 print:text-xs";
+export const TD = "whitespace-nowrap px-2 py-1 font-mono text-sm tabular-nums print:px-1 print:py-0.5 print:text-xs";
 export const TABLE = "w-full border-collapse text-left [&_tbody_tr]:border-t [&_tbody_tr]:border-chart-rule";
 
 /** A 3×3 matrix with its rows and columns named by body axis. */

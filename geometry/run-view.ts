@@ -203,20 +203,30 @@ export function buildRunView(
     const d: number[][] = [[], [], []];
     const b = m.offset!;
     const W = m.softIron!;
-    // Field change relative to the motor-off mean, per body axis, against the input.
+    // Field change against the input, within the still stretches where the motors ran (the
+    // attitude fixed), relative to the level the fitted slope implies at zero input.
+    const inRun = new Uint8Array(n);
+    for (const p of analysis.stillPeriods) {
+      let powered = false;
+      for (let i = p.startIndex; i < p.endIndex && !powered; i++) powered = input[i] > 0;
+      if (powered) inRun.fill(1, p.startIndex, p.endIndex);
+    }
     const off = [0, 0, 0];
-    let offCount = 0;
+    let count = 0;
+    let inputMean = 0;
     for (let i = 0; i < n; i++) {
-      if (input[i] !== 0) continue;
+      if (!inRun[i]) continue;
       const v = [capture.columns[`${m.sensor}.x`][i] - b[0], capture.columns[`${m.sensor}.y`][i] - b[1], capture.columns[`${m.sensor}.z`][i] - b[2]];
       for (let r = 0; r < 3; r++) off[r] += W[r][0] * v[0] + W[r][1] * v[1] + W[r][2] * v[2];
-      offCount += 1;
+      inputMean += input[i];
+      count += 1;
     }
-    if (offCount === 0) continue;
-    for (let r = 0; r < 3; r++) off[r] /= offCount;
+    if (count === 0) continue;
+    inputMean /= count;
+    for (let r = 0; r < 3; r++) off[r] = off[r] / count - result.slopePerUnit[r] * inputMean;
     const step = stride(n, 800);
     for (let i = 0; i < n; i += step) {
-      if (!(input[i] > 0)) continue;
+      if (!inRun[i]) continue;
       const v = [capture.columns[`${m.sensor}.x`][i] - b[0], capture.columns[`${m.sensor}.y`][i] - b[1], capture.columns[`${m.sensor}.z`][i] - b[2]];
       x.push(round(input[i]));
       for (let r = 0; r < 3; r++) d[r].push(round(W[r][0] * v[0] + W[r][1] * v[1] + W[r][2] * v[2] - off[r]));

@@ -140,6 +140,7 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       length: table.length,
       layout: "float32 little-endian, column-major, fields in order",
     },
+    view: { key: viewKey, sampleCount: view.sampleCount, pointsShown: view.pointsShown },
     file: { delimiter: ingested.delimiter, ignoredColumns: ingested.ignoredColumns, recognition: ingested.recognition },
   }) as Record<string, unknown>;
 

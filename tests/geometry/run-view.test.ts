@@ -81,5 +81,9 @@ describe("buildRunView", () => {
     expect(c.x.length).toBeGreaterThan(10);
     expect(c.slope[0]).toBeCloseTo(0.3, 1);
     expect(view.series.current!.length).toBe(view.series.timeS.length);
+    // The points lie along the fitted slope: change ≈ slope · current on each axis (invented coupling 0.3 µT/A on x).
+    const residuals = c.x.map((amps, k) => c.dx[k] - c.slope[0] * amps);
+    const rms = Math.sqrt(residuals.reduce((s, r) => s + r * r, 0) / residuals.length);
+    expect(rms).toBeLessThan(1.5);
   });
 });

@@ -291,3 +291,16 @@ describe("lists", () => {
     expect(await db().models.Run.findByPk(runId, { paranoid: false })).not.toBeNull();
   });
 });
+
+describe("the drawing data", () => {
+  test("is stored beside the samples and read back for the run page", async () => {
+    actAs(owner.id);
+    const { runId } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { mag0: magId }, csv: simulatedCsv({ seed: 13, siteFieldNed: siteFieldNed() }) });
+    await processRunVersion(await currentVersionOf(runId));
+    const { getRunPageData } = await import("@/lib/data/run-page");
+    const data = await getRunPageData(workspace.id, runId);
+    expect(data!.analysis!.verdict).toMatch(/^(pass|warn|fail)$/);
+    expect(data!.view!.magnetometers[0].raw.length).toBe(3 * data!.view!.pointsShown);
+    expect(data!.view!.expectedField!.strength).toBeGreaterThan(25);
+  });
+});

@@ -22,7 +22,8 @@ export function AppHeader({
           <Wordmark />
         </Link>
         <details className="relative">
-          <summary className="btn-quiet cursor-pointer list-none py-1.5" aria-label="Switch workspace">
+          <summary className="btn-quiet cursor-pointer list-none py-1.5">
+            <span className="sr-only">Workspace: </span>
             {active ? active.name : "Workspaces"}
             <span aria-hidden className="text-chart-muted">
               ▾

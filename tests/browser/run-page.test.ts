@@ -125,12 +125,14 @@ test("a technician reads the run, turns the view, exports and signs off", async 
   await expect.poll(async () => (await canvasState(page)).colours, { timeout: 20_000 }).toBeGreaterThan(8);
   expect((await canvasState(page)).webgl).toBe(true);
   const before = await canvas.screenshot();
-  const toggle = page.getByRole("button", { name: /as logged|raw/i }).first();
-  await toggle.click();
-  await expect.poll(() => toggle.getAttribute("aria-pressed")).toBe("true");
-  await page.waitForTimeout(500);
+  // Corrected is shown first; switching to the cloud as logged changes the picture.
+  expect(await page.getByLabel("Corrected", { exact: true }).isChecked()).toBe(true);
+  await page.getByText("As logged", { exact: true }).click();
+  await expect.poll(() => page.getByLabel("As logged", { exact: true }).isChecked()).toBe(true);
+  await page.waitForTimeout(800);
   expect(Buffer.compare(before, await canvas.screenshot())).not.toBe(0);
-  await expect.poll(() => page.getByText(/shown|showing/i).first().textContent()).toMatch(/\d/);
+  await expect.poll(async () => (await canvasState(page)).colours).toBeGreaterThan(8);
+  expect(await page.getByTestId("samples-shown").textContent()).toMatch(/Showing [\d,]+ of [\d,]+ samples/);
 
   // The verdict, the failing mounting check (the mast module is turned 90° against its declaration), the parameters.
   const checks = page.getByTestId("check-list");
@@ -161,9 +163,11 @@ test("a technician reads the run, turns the view, exports and signs off", async 
   // Sign off with a comment; the stamp replaces the form, and the logbook records it.
   await page.getByLabel("Comment for the record").fill("Mast module to be re-declared as yaw 90 before flight.");
   await page.getByRole("button", { name: "Sign off this version" }).click();
-  await expect.poll(() => page.getByRole("status").first().textContent()).toMatch(/Signed off/);
-  await page.reload();
+  // The page re-renders with the stamp in place of the form, and keeps it after a reload.
   await expect.poll(() => page.getByTestId("signed-off").textContent()).toMatch(/re-declared as yaw 90/);
+  await page.reload();
+  await expect.poll(() => page.getByTestId("signed-off").textContent()).toMatch(/Signed off by/);
+  expect(await page.getByRole("button", { name: "Sign off this version" }).count()).toBe(0);
   const events = await db().models.AuditEvent.findAll({ where: { action: "run.signed-off", targetId: runId } });
   expect(events).toHaveLength(1);
   await page.context().close();

@@ -40,8 +40,9 @@ const config: Config = {
           muted: "rgb(var(--chart-muted) / <alpha-value>)",
           rule: "rgb(var(--chart-rule) / <alpha-value>)",
         },
-        steady: { DEFAULT: "#2f7d4f", soft: "rgb(var(--steady-soft) / <alpha-value>)" },
-        heed: { DEFAULT: "#b26a00", soft: "rgb(var(--heed-soft) / <alpha-value>)" },
+        // "ink" shades keep small status words at 4.5:1 on their soft backgrounds (WCAG 2 AA).
+        steady: { DEFAULT: "#2f7d4f", ink: "#266640", soft: "rgb(var(--steady-soft) / <alpha-value>)" },
+        heed: { DEFAULT: "#b26a00", ink: "#8a5200", soft: "rgb(var(--heed-soft) / <alpha-value>)" },
         halt: { DEFAULT: "#b3261e", soft: "rgb(var(--halt-soft) / <alpha-value>)" },
       },
       fontFamily: {

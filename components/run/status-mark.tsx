@@ -10,13 +10,13 @@ export const STATUS_LOOK: Record<CheckStatus, { word: string; text: string; chip
     word: "Pass",
     text: "text-steady dark:text-emerald-300",
     // The word is a shade darker than the status colour so small text keeps 4.5:1 on the soft background.
-    chip: "border-steady/40 bg-steady-soft text-[#266640] dark:text-emerald-300",
+    chip: "border-steady/40 bg-steady-soft text-steady-ink dark:text-emerald-300",
     rule: "border-l-steady",
   },
   warn: {
     word: "Warn",
     text: "text-heed dark:text-amber-300",
-    chip: "border-heed/40 bg-heed-soft text-[#8a5200] dark:text-amber-300",
+    chip: "border-heed/40 bg-heed-soft text-heed-ink dark:text-amber-300",
     rule: "border-l-heed",
   },
   fail: {

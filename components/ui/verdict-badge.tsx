@@ -1,8 +1,8 @@
 import type { Verdict } from "@/lib/fleet-terms";
 
 const LOOK: Record<Verdict, { word: string; tone: string }> = {
-  pass: { word: "Pass", tone: "border-steady/40 bg-steady-soft text-steady dark:text-emerald-300" },
-  warn: { word: "Warn", tone: "border-heed/40 bg-heed-soft text-heed dark:text-amber-300" },
+  pass: { word: "Pass", tone: "border-steady/40 bg-steady-soft text-steady-ink dark:text-emerald-300" },
+  warn: { word: "Warn", tone: "border-heed/40 bg-heed-soft text-heed-ink dark:text-amber-300" },
   fail: { word: "Fail", tone: "border-halt/40 bg-halt-soft text-halt dark:text-red-300" },
 };
 

@@ -5,10 +5,19 @@ import { CoverageMap } from "@/components/viewer/coverage-map";
 import { SphereViewLoader } from "@/components/viewer/sphere-view-loader";
 
 /** The drawings of a run: the 3D sphere, the flat coverage map of each compass, and the plots. */
-export function RunViewPanel({ view, sensorLabels, gravityMps2 }: { view: RunView; sensorLabels: Record<string, string>; gravityMps2?: number | null }) {
+export function RunViewPanel({
+  view,
+  sensorLabels,
+  gravityMps2,
+}: {
+  view: RunView;
+  sensorLabels: Record<string, string>;
+  gravityMps2?: number | null;
+}) {
   const mapped = view.magnetometers.filter((m) => m.cellCounts);
   return (
-    <div className="space-y-6">
+    // On paper the report keeps to the verdict, checks and parameters; the drawings stay on screen.
+    <div className="space-y-6 print:hidden">
       {view.magnetometers.length ? (
         <div className="print:hidden">
           <SphereViewLoader view={view} sensorLabels={sensorLabels} />
@@ -21,7 +30,11 @@ export function RunViewPanel({ view, sensorLabels, gravityMps2 }: { view: RunVie
           </h2>
           <div className={mapped.length > 1 ? "grid gap-4 xl:grid-cols-2" : ""}>
             {mapped.map((m) => (
-              <CoverageMap key={m.sensor} magnetometer={m} sensorLabel={sensorLabels[m.sensor] ? `${m.sensor} · ${sensorLabels[m.sensor]}` : m.sensor} />
+              <CoverageMap
+                key={m.sensor}
+                magnetometer={m}
+                sensorLabel={sensorLabels[m.sensor] ? `${m.sensor} · ${sensorLabels[m.sensor]}` : m.sensor}
+              />
             ))}
           </div>
         </section>

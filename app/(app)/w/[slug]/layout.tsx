@@ -21,7 +21,7 @@ export default async function WorkspaceLayout({ children, params }: { children: 
   return (
     <>
       <AppHeader viewer={viewer} workspaces={workspaces} current={slug} />
-      <div className="border-b border-chart-rule bg-chart-sheet">
+      <div className="border-b border-chart-rule bg-chart-sheet print:hidden">
         <div className="mx-auto max-w-6xl px-4 pt-6 sm:px-6">
           <p className="text-xs font-semibold uppercase tracking-widest text-brass-600 dark:text-brass-300">
             {WORKSPACE_KIND_LABELS[access.workspace.kind]}
@@ -37,7 +37,7 @@ export default async function WorkspaceLayout({ children, params }: { children: 
           </div>
         </div>
       </div>
-      <main className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+      <main className="mx-auto max-w-6xl px-4 py-8 sm:px-6 print:max-w-none print:p-0">
         <QueryProvider>{children}</QueryProvider>
       </main>
     </>

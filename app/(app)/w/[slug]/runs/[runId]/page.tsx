@@ -24,7 +24,13 @@ export const metadata: Metadata = { title: "Calibration run" };
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-export default async function RunPage({ params, searchParams }: { params: Promise<{ slug: string; runId: string }>; searchParams: Promise<{ version?: string }> }) {
+export default async function RunPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ slug: string; runId: string }>;
+  searchParams: Promise<{ version?: string }>;
+}) {
   const [{ slug, runId }, { version: versionParam }] = await Promise.all([params, searchParams]);
   const { access, can } = await requireWorkspacePage(slug, "run.view");
   if (!UUID.test(runId)) notFound();
@@ -59,8 +65,10 @@ export default async function RunPage({ params, searchParams }: { params: Promis
           <h2 className="text-2xl font-semibold">{run.title || run.fileName}</h2>
           <p className="text-sm text-chart-muted">
             Captured {run.capturedOn}
-            {run.site ? ` at ${run.site.name} (${run.site.latitudeDeg.toFixed(3)}°, ${run.site.longitudeDeg.toFixed(3)}°, ${run.site.altitudeM} m)` : " · no site given"} · uploaded by{" "}
-            {run.uploadedByName ?? "someone"}
+            {run.site
+              ? ` at ${run.site.name} (${run.site.latitudeDeg.toFixed(3)}°, ${run.site.longitudeDeg.toFixed(3)}°, ${run.site.altitudeM} m)`
+              : " · no site given"}{" "}
+            · uploaded by {run.uploadedByName ?? "someone"}
             {run.simulated ? " · simulated data" : ""}
           </p>
         </div>
@@ -78,10 +86,20 @@ export default async function RunPage({ params, searchParams }: { params: Promis
         <RunProgress apiBase={apiBase} initial={{ status: run.status, progress: run.progress, stage: run.stage, error: run.error }} />
       ) : (
         <>
-          <VerdictBanner verdict={analysis.verdict} verdictSummary={analysis.verdictSummary} diagnosis={analysis.diagnosis} checks={analysis.checks} sensorLabels={sensorLabels} />
+          <VerdictBanner
+            verdict={analysis.verdict}
+            verdictSummary={analysis.verdictSummary}
+            diagnosis={analysis.diagnosis}
+            checks={analysis.checks}
+            sensorLabels={sensorLabels}
+          />
           <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] print:block">
             <div className="min-w-0 space-y-6">
-              {view ? <RunViewPanel view={view} sensorLabels={sensorLabels} gravityMps2={analysis.reference.gravityMps2} /> : <p className="card p-5 text-sm text-chart-muted">No drawing data was kept for this version.</p>}
+              {view ? (
+                <RunViewPanel view={view} sensorLabels={sensorLabels} gravityMps2={analysis.reference.gravityMps2} />
+              ) : (
+                <p className="card p-5 text-sm text-chart-muted">No drawing data was kept for this version.</p>
+              )}
             </div>
             <aside className="space-y-4 print:hidden" aria-label="Actions">
               <section className="card space-y-3 p-5" aria-labelledby="sign-off-heading" data-testid="sign-off">
@@ -97,7 +115,9 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                     <p className="mt-1 text-xs text-chart-muted">This version is locked: processing again makes a new version.</p>
                   </div>
                 ) : run.signedOffVersionId ? (
-                  <p className="text-sm text-chart-muted">Version {run.versions.find((v) => v.id === run.signedOffVersionId)?.number} of this run is signed off; this one is not.</p>
+                  <p className="text-sm text-chart-muted">
+                    Version {run.versions.find((v) => v.id === run.signedOffVersionId)?.number} of this run is signed off; this one is not.
+                  </p>
                 ) : null}
                 {!signedThis && can("run.sign-off") && isCurrent && version ? (
                   <SignOffForm workspace={slug} runId={run.id} versionId={version.id} verdict={analysis.verdict} />
@@ -121,7 +141,13 @@ export default async function RunPage({ params, searchParams }: { params: Promis
                   <h2 id="reprocess-heading" className="text-lg font-semibold">
                     Process again
                   </h2>
-                  <ReprocessForm apiBase={apiBase} sites={sites} currentModel={version?.modelChoice ?? "auto"} currentSiteId={run.site?.siteId ?? null} signedOff={Boolean(run.signedOffVersionId)} />
+                  <ReprocessForm
+                    apiBase={apiBase}
+                    sites={sites}
+                    currentModel={version?.modelChoice ?? "auto"}
+                    currentSiteId={run.site?.siteId ?? null}
+                    signedOff={Boolean(run.signedOffVersionId)}
+                  />
                 </section>
               ) : null}
               <VersionList versions={run.versions} currentId={version?.id ?? null} signedOffId={run.signedOffVersionId} />
@@ -137,12 +163,18 @@ export default async function RunPage({ params, searchParams }: { params: Promis
             sensorLabels={sensorLabels}
           />
           {firstCompass ? (
-            <Comparison
-              current={figuresOf(firstCompass, { capturedOn: run.capturedOn, title: run.title })}
-              previous={previousCompass ? figuresOf(previousCompass, { capturedOn: previous!.run.capturedOn, title: previous!.run.title }) : null}
-              previousHref={previous ? `/w/${slug}/runs/${previous.run.id}` : null}
-              sensorName={sensorLabels[firstCompass.sensor] ? `${firstCompass.sensor} · ${sensorLabels[firstCompass.sensor]}` : firstCompass.sensor}
-            />
+            <div className="print:hidden">
+              <Comparison
+                current={figuresOf(firstCompass, { capturedOn: run.capturedOn, title: run.title })}
+                previous={
+                  previousCompass ? figuresOf(previousCompass, { capturedOn: previous!.run.capturedOn, title: previous!.run.title }) : null
+                }
+                previousHref={previous ? `/w/${slug}/runs/${previous.run.id}` : null}
+                sensorName={
+                  sensorLabels[firstCompass.sensor] ? `${firstCompass.sensor} · ${sensorLabels[firstCompass.sensor]}` : firstCompass.sensor
+                }
+              />
+            </div>
           ) : null}
           {analysis.notes.length ? (
             <section className="card p-5 text-sm print:hidden" aria-labelledby="notes-heading">

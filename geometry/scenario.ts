@@ -1,0 +1,89 @@
+/**
+ * A teaching scenario: the fault-by-fault description an instructor composes, turned into
+ * the simulator's capture spec. The site and date give the Earth's field through the World
+ * Magnetic Model, so a simulated compass reads what a real one would there.
+ */
+import { magneticReference } from "./magnetic-reference";
+import type { BodyFace, CaptureSpec, RotationPath, SimulatedMagnetometerSpec, SoftIronLevel } from "./magnetometer-types";
+import { mountingRotationByName } from "./mounting-rotations";
+import type { Mat3, Vec3 } from "./types";
+
+export interface ScenarioSpec {
+  site: { name: string; latitudeDeg: number; longitudeDeg: number; altitudeM: number };
+  /** YYYY-MM-DD */
+  date: string;
+  seed: number;
+  /** Samples per second of the simulated logger. */
+  sampleRateHz: number;
+  path: Exclude<RotationPath, "none">;
+  pathSeconds: number;
+  /** Standard deviation of the compass noise, µT. */
+  noiseMicrotesla: number;
+  hardIronOffset: Vec3;
+  softIron: SoftIronLevel | Mat3;
+  /** A second compass (an external module), optionally mounted against its declaration. */
+  secondCompass: { mountingRotation: string; declaredRotation: string; hardIronOffset: Vec3 } | null;
+  /** A motor run at the end: field per ampere on each body axis, µT/A, up to maxAmps. */
+  currentCoupling: { perAmpMicrotesla: Vec3; maxAmps: number } | null;
+  /** Readings clamp at ± this many µT. */
+  clipLevelMicrotesla: number | null;
+  /** Six-face accelerometer holds before the rotation, with hand wobble and tilt, degrees. */
+  holds: { faces: BodyFace[]; wobbleDeg: number; tiltDeg: number } | null;
+  /** Steel this many metres from the capture spot. */
+  steel: { distanceM: number } | null;
+}
+
+export const DEFAULT_SCENARIO: ScenarioSpec = {
+  site: { name: "Training field", latitudeDeg: 51.2, longitudeDeg: -1.1, altitudeM: 90 },
+  date: "2026-10-01",
+  seed: 1,
+  sampleRateHz: 25,
+  path: "full",
+  pathSeconds: 90,
+  noiseMicrotesla: 0.3,
+  hardIronOffset: [8, -5, 12],
+  softIron: "mild",
+  secondCompass: null,
+  currentCoupling: null,
+  clipLevelMicrotesla: null,
+  holds: null,
+  steel: null,
+};
+
+function rotation(name: string, what: string): Mat3 {
+  const found = mountingRotationByName(name);
+  if (!found) throw new RangeError(`${what}: "${name}" is not a standard mounting rotation`);
+  return found.matrix;
+}
+
+/** The simulator's spec for a scenario (throws RangeError naming a bad rotation). */
+export function scenarioCaptureSpec(spec: ScenarioSpec): CaptureSpec {
+  const field = magneticReference(spec.site, new Date(`${spec.date}T12:00:00Z`)).fieldNedMicrotesla;
+  const first: SimulatedMagnetometerSpec = {
+    hardIronOffset: spec.hardIronOffset,
+    softIron: spec.softIron,
+    noise: spec.noiseMicrotesla,
+    ...(spec.clipLevelMicrotesla ? { clipLevel: spec.clipLevelMicrotesla } : {}),
+    ...(spec.currentCoupling ? { currentCoupling: spec.currentCoupling.perAmpMicrotesla } : {}),
+  };
+  const magnetometers: SimulatedMagnetometerSpec[] = [first];
+  if (spec.secondCompass) {
+    magnetometers.push({
+      hardIronOffset: spec.secondCompass.hardIronOffset,
+      noise: spec.noiseMicrotesla,
+      mountingRotation: rotation(spec.secondCompass.mountingRotation, "second compass mounting"),
+      declaredRotation: rotation(spec.secondCompass.declaredRotation, "second compass declaration"),
+    });
+  }
+  return {
+    seed: spec.seed,
+    sampleRateHz: spec.sampleRateHz,
+    siteFieldNed: field,
+    path: spec.path,
+    pathSeconds: spec.pathSeconds,
+    magnetometers,
+    ...(spec.holds ? { holds: { faces: spec.holds.faces, wobbleDeg: spec.holds.wobbleDeg, tiltDeg: spec.holds.tiltDeg } } : {}),
+    ...(spec.currentCoupling ? { currentTest: { maxAmps: spec.currentCoupling.maxAmps } } : {}),
+    ...(spec.steel ? { steel: { distanceM: spec.steel.distanceM } } : {}),
+  };
+}

@@ -43,30 +43,8 @@ const sharedOnly: Rule = (_actorId, resource) => resource === undefined || resou
 
 /** The matrix, documented in the README ("Roles"). Missing entries mean "no". */
 const MATRIX: Record<Role, Partial<Record<Action, Rule>>> = {
-  owner: Object.fromEntries(
-    [
-      "workspace.view",
-      "workspace.update",
-      "member.list",
-      "member.invite",
-      "member.change-role",
-      "member.remove",
-      "audit.view",
-      "vehicle.view",
-      "vehicle.edit",
-      "site.edit",
-      "run.view",
-      "run.create",
-      "run.edit",
-      "run.sign-off",
-      "class.view",
-      "class.host",
-      "class.join",
-      "scenario.manage",
-      "demo.manage",
-      "shared.view",
-    ].map((a) => [a, true]),
-  ),
+  // Owners may do everything.
+  owner: Object.fromEntries(ACTIONS.map((action) => [action, true])),
   technician: {
     "workspace.view": true,
     "member.list": true,

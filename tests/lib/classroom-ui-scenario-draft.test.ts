@@ -1,0 +1,212 @@
+import { describe, expect, test } from "vitest";
+import { draftFromScenario, setSoftIronEntry, type ScenarioDraft } from "@/components/classroom/scenario-draft";
+import { isCalendarDate, isPositiveDefinite, readScenarioBody, readScenarioSpec } from "@/components/classroom/scenario-draft-read";
+import { DEFAULT_SCENARIO, type ScenarioSpec } from "@/geometry/scenario";
+import type { Mat3 } from "@/geometry/types";
+
+// Invented scenarios (demo values), chosen to switch every optional fault on.
+const EVERY_FAULT: ScenarioSpec = {
+  ...DEFAULT_SCENARIO,
+  path: "upper-half",
+  softIron: [
+    [1.1, 0.05, 0],
+    [0.05, 0.92, -0.02],
+    [0, -0.02, 1],
+  ],
+  secondCompass: { mountingRotation: "roll 180 yaw 45", declaredRotation: "none", hardIronOffset: [1, -2, 3.5] },
+  currentCoupling: { perAmpMicrotesla: [0.4, 0, -0.25], maxAmps: 30 },
+  clipLevelMicrotesla: 55,
+  holds: { faces: ["+z", "-z", "+x"], wobbleDeg: 5, tiltDeg: 2 },
+  steel: { distanceM: 0.8 },
+};
+
+function edit(change: (d: ScenarioDraft) => void, spec: ScenarioSpec = DEFAULT_SCENARIO): ScenarioDraft {
+  const draft = draftFromScenario(spec, { name: "Flat spin", answer: "The vehicle was only spun flat." });
+  change(draft);
+  return draft;
+}
+
+describe("draftFromScenario and readScenarioSpec", () => {
+  test.each([
+    ["the default scenario", DEFAULT_SCENARIO],
+    ["every fault switched on", EVERY_FAULT],
+    ["a named soft-iron level", { ...DEFAULT_SCENARIO, softIron: "strong" as const }],
+  ])("round trip: %s", (_label, spec) => {
+    expect(readScenarioSpec(draftFromScenario(spec))).toEqual({ spec, errors: {} });
+  });
+
+  test("a fault switched off reads as null but keeps its values for switching on again", () => {
+    const draft = draftFromScenario(EVERY_FAULT);
+    draft.secondCompass.on = false;
+    draft.steel.on = false;
+    const { spec } = readScenarioSpec(draft);
+    expect(spec?.secondCompass).toBeNull();
+    expect(spec?.steel).toBeNull();
+    draft.secondCompass.on = true;
+    expect(readScenarioSpec(draft).spec?.secondCompass).toEqual(EVERY_FAULT.secondCompass);
+  });
+
+  test("switching a fault on for the first time starts from sensible values that read without errors", () => {
+    const draft = draftFromScenario(DEFAULT_SCENARIO);
+    draft.secondCompass.on = draft.currentCoupling.on = draft.clip.on = draft.holds.on = draft.steel.on = true;
+    draft.softIron = "custom";
+    expect(readScenarioSpec(draft).errors).toEqual({});
+  });
+});
+
+describe("readScenarioSpec: one message per bad field, under the API's field names", () => {
+  test.each([
+    ["latitude beyond the pole", (d: ScenarioDraft) => (d.site.latitudeDeg = "91"), "spec.site.latitudeDeg", /between -90° and 90°/],
+    ["empty longitude", (d: ScenarioDraft) => (d.site.longitudeDeg = " "), "spec.site.longitudeDeg", /Give a number/],
+    ["words for altitude", (d: ScenarioDraft) => (d.site.altitudeM = "high"), "spec.site.altitudeM", /not a number/],
+    ["no site name", (d: ScenarioDraft) => (d.site.name = ""), "spec.site.name", /Name the site/],
+    ["a date that does not exist", (d: ScenarioDraft) => (d.date = "2026-02-30"), "spec.date", /YYYY-MM-DD/],
+    ["a date far outside the models", (d: ScenarioDraft) => (d.date = "1990-01-01"), "spec.date", /between 2000 and 2040/],
+    ["a fractional seed", (d: ScenarioDraft) => (d.seed = "1.5"), "spec.seed", /whole number/],
+    ["too slow a logger", (d: ScenarioDraft) => (d.sampleRateHz = "2"), "spec.sampleRateHz", /between 5 Hz and 100 Hz/],
+    ["too long a capture", (d: ScenarioDraft) => ((d.sampleRateHz = "100"), (d.pathSeconds = "300")), "spec.pathSeconds", /too many/],
+    ["negative noise", (d: ScenarioDraft) => (d.noiseMicrotesla = "-1"), "spec.noiseMicrotesla", /between 0 µT/],
+    ["one offset axis out of range", (d: ScenarioDraft) => (d.hardIronOffset[2] = "900"), "spec.hardIronOffset.2", /300 µT/],
+    [
+      "custom soft iron with a tiny diagonal",
+      (d: ScenarioDraft) => ((d.softIron = "custom"), (d.softIronMatrix[1][1] = "0.1")),
+      "spec.softIron.1.1",
+      /0.5/,
+    ],
+    [
+      "custom soft iron that is not positive definite",
+      (d: ScenarioDraft) => {
+        d.softIron = "custom";
+        // Leading minors 0.5, 0.16, −0.064 (by hand): the last is negative.
+        d.softIronMatrix = [
+          ["0.5", "0.3", "-0.3"],
+          ["0.3", "0.5", "0.3"],
+          ["-0.3", "0.3", "0.5"],
+        ];
+      },
+      "spec.softIron",
+      /folds space/,
+    ],
+    [
+      "an unknown mounting rotation",
+      (d: ScenarioDraft) => ((d.secondCompass.on = true), (d.secondCompass.mountingRotation = "yaw 91")),
+      "spec.secondCompass.mountingRotation",
+      /yaw 91/,
+    ],
+    [
+      "coupling beyond 5 µT/A",
+      (d: ScenarioDraft) => ((d.currentCoupling.on = true), (d.currentCoupling.perAmpMicrotesla[0] = "9")),
+      "spec.currentCoupling.perAmpMicrotesla.0",
+      /µT\/A/,
+    ],
+    [
+      "no current at all",
+      (d: ScenarioDraft) => ((d.currentCoupling.on = true), (d.currentCoupling.maxAmps = "0")),
+      "spec.currentCoupling.maxAmps",
+      /between 1 A/,
+    ],
+    [
+      "a clip level below any field",
+      (d: ScenarioDraft) => ((d.clip.on = true), (d.clip.levelMicrotesla = "3")),
+      "spec.clipLevelMicrotesla",
+      /between 10 µT/,
+    ],
+    ["holds with no face", (d: ScenarioDraft) => ((d.holds.on = true), (d.holds.faces = [])), "spec.holds.faces", /at least one face/],
+    ["a violent wobble", (d: ScenarioDraft) => ((d.holds.on = true), (d.holds.wobbleDeg = "45")), "spec.holds.wobbleDeg", /and 20°/],
+    ["steel touching the vehicle", (d: ScenarioDraft) => ((d.steel.on = true), (d.steel.distanceM = "0")), "spec.steel.distanceM", /0.2 m/],
+  ])("%s", (_label, change, key, message) => {
+    const { spec, errors } = readScenarioSpec(edit(change));
+    expect(spec).toBeNull();
+    expect(Object.keys(errors)).toEqual([key]);
+    expect(errors[key]).toMatch(message);
+  });
+
+  test("a fault switched off is not checked", () => {
+    const draft = edit((d) => ((d.steel.on = false), (d.steel.distanceM = "nonsense")));
+    expect(readScenarioSpec(draft).errors).toEqual({});
+  });
+});
+
+describe("readScenarioBody", () => {
+  test("needs a name and an answer besides a good spec", () => {
+    const { body, errors } = readScenarioBody(edit((d) => ((d.name = "  "), (d.answer = ""))));
+    expect(body).toBeNull();
+    expect(Object.keys(errors).sort()).toEqual(["answer", "name"]);
+  });
+
+  test("trims the words and carries the spec", () => {
+    const { body } = readScenarioBody(edit((d) => ((d.name = "  Flat spin "), (d.description = " Spun on a table. "))));
+    expect(body).toEqual({
+      name: "Flat spin",
+      description: "Spun on a table.",
+      answer: "The vehicle was only spun flat.",
+      spec: DEFAULT_SCENARIO,
+    });
+  });
+});
+
+describe("setSoftIronEntry", () => {
+  test("writes the entry and its mirror, leaving the original alone", () => {
+    const before = draftFromScenario(EVERY_FAULT).softIronMatrix;
+    const after = setSoftIronEntry(before, 0, 2, "0.07");
+    expect(after[0][2]).toBe("0.07");
+    expect(after[2][0]).toBe("0.07");
+    expect(before[0][2]).toBe("0");
+  });
+});
+
+describe("isPositiveDefinite", () => {
+  // Small matrices checkable by hand (Sylvester's criterion).
+  test.each<[string, Mat3, boolean]>([
+    [
+      "identity",
+      [
+        [1, 0, 0],
+        [0, 1, 0],
+        [0, 0, 1],
+      ],
+      true,
+    ],
+    [
+      "mild distortion",
+      [
+        [1.03, 0.015, -0.01],
+        [0.015, 0.98, 0.02],
+        [-0.01, 0.02, 1.01],
+      ],
+      true,
+    ],
+    [
+      "a negative axis",
+      [
+        [1, 0, 0],
+        [0, -1, 0],
+        [0, 0, 1],
+      ],
+      false,
+    ],
+    [
+      "singular: two equal rows",
+      [
+        [1, 1, 0],
+        [1, 1, 0],
+        [0, 0, 1],
+      ],
+      false,
+    ],
+  ])("%s → %s", (_label, m, expected) => {
+    expect(isPositiveDefinite(m)).toBe(expected);
+  });
+});
+
+describe("isCalendarDate", () => {
+  test.each([
+    ["an ordinary day", "2026-10-01", true],
+    ["29 February of a leap year", "2028-02-29", true],
+    ["29 February of a common year", "2026-02-29", false],
+    ["no day", "2026-10", false],
+    ["another format", "01/10/2026", false],
+  ])("%s (%s) → %s", (_label, value, expected) => {
+    expect(isCalendarDate(value)).toBe(expected);
+  });
+});

@@ -6,9 +6,10 @@ async function main() {
   const { startWorker } = await import("@/lib/jobs/worker");
   const { stopQueue } = await import("@/lib/jobs/queue");
   const { closeDb } = await import("@/lib/db");
-  // Test seam for the crash-and-retry test: die abruptly in the middle of a job, as a killed process would.
-  const crash = process.env.LOXODROME_TEST_CRASH_AFTER_PARSE === "1";
-  await startWorker(console.log, crash ? { afterParse: () => process.exit(137) } : {});
+  // Test seam for the crash-and-retry test: die abruptly in the middle of one given version's
+  // job, as a killed process would.
+  const crashVersion = process.env.LOXODROME_TEST_CRASH_VERSION;
+  await startWorker(console.log, crashVersion ? { afterParse: (versionId) => (versionId === crashVersion ? process.exit(137) : undefined) } : {});
   console.log("[worker] waiting for runs to process");
   const stop = async () => {
     await stopQueue();

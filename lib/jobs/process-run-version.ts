@@ -17,7 +17,7 @@ export type ProcessOutcome = "done" | "failed" | "skipped";
 
 /** Test seam: lets a test stop the work between parsing and saving, as a crash would. */
 export interface ProcessHooks {
-  afterParse?: () => void | Promise<void>;
+  afterParse?: (versionId: string) => void | Promise<void>;
 }
 
 function unitsOf(stored: Record<string, string>): CaptureUnits {
@@ -92,7 +92,7 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       return fail(versionId, { message: error.message, row: error.row ?? undefined, column: error.column ?? undefined });
     throw error;
   }
-  await hooks.afterParse?.();
+  await hooks.afterParse?.(versionId);
 
   await setStage("Fitting", 0.65);
   const slots = await models.RunSensor.findAll({ where: { runId: run.id }, include: [{ model: models.Sensor, as: "sensor" }] });

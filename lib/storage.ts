@@ -9,6 +9,10 @@ import { storage as settings } from "@/lib/env";
  * Locally this is the s3rver fake the start and test commands run; any S3-compatible store
  * is configured with the S3_* variables (README, "Configuration").
  */
+// The SDK warns once per process that future releases will need Node 22; this project runs on
+// Node 20 with the SDK version pinned in package-lock.json, so the warning only adds noise to logs.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
+
 let client: S3Client | undefined;
 let publicClient: S3Client | undefined;
 

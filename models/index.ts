@@ -1,12 +1,17 @@
 import type { Sequelize } from "sequelize";
 import { ApiToken } from "./api-token";
 import { AuditEvent } from "./audit-event";
+import { ClassAnswer } from "./class-answer";
+import { ClassParticipant } from "./class-participant";
+import { ClassQuestion } from "./class-question";
+import { ClassSession } from "./class-session";
 import { Invitation } from "./invitation";
 import { Membership } from "./membership";
 import { PasswordResetToken } from "./password-reset-token";
 import { Run } from "./run";
 import { RunSensor } from "./run-sensor";
 import { RunVersion } from "./run-version";
+import { Scenario } from "./scenario";
 import { Sensor } from "./sensor";
 import { SignInAttempt } from "./sign-in-attempt";
 import { Site } from "./site";
@@ -34,6 +39,11 @@ export function initModels(sequelize: Sequelize) {
     RunSensor,
     RunVersion,
     ApiToken,
+    Scenario,
+    ClassSession,
+    ClassParticipant,
+    ClassQuestion,
+    ClassAnswer,
   ]) {
     model.initModel(sequelize);
   }
@@ -53,6 +63,11 @@ export function initModels(sequelize: Sequelize) {
   Run.hasMany(RunSensor, { foreignKey: "runId", as: "runSensors" });
   RunSensor.belongsTo(Sensor, { foreignKey: "sensorId", as: "sensor" });
   ApiToken.belongsTo(User, { foreignKey: "userId", as: "user" });
+  ClassSession.belongsTo(User, { foreignKey: "hostId", as: "host" });
+  ClassSession.hasMany(ClassParticipant, { foreignKey: "sessionId", as: "participants" });
+  ClassParticipant.belongsTo(User, { foreignKey: "userId", as: "user" });
+  ClassQuestion.hasMany(ClassAnswer, { foreignKey: "questionId", as: "answers" });
+  ClassAnswer.belongsTo(ClassParticipant, { foreignKey: "participantId", as: "participant" });
   return {
     User,
     Workspace,
@@ -68,18 +83,28 @@ export function initModels(sequelize: Sequelize) {
     RunSensor,
     RunVersion,
     ApiToken,
+    Scenario,
+    ClassSession,
+    ClassParticipant,
+    ClassQuestion,
+    ClassAnswer,
   };
 }
 
 export {
   ApiToken,
   AuditEvent,
+  ClassAnswer,
+  ClassParticipant,
+  ClassQuestion,
+  ClassSession,
   Invitation,
   Membership,
   PasswordResetToken,
   Run,
   RunSensor,
   RunVersion,
+  Scenario,
   Sensor,
   SignInAttempt,
   Site,

@@ -16,6 +16,8 @@ export interface LiveViewProps {
   sensorLabels?: Record<string, string>;
   /** Leave out the 3D view (the builder's preview draws it only on demand). */
   sphere?: boolean;
+  /** One column whatever the width (a narrow panel beside a form). */
+  stacked?: boolean;
 }
 
 /** The verdict without its likely causes, so students work the fault out from the checks. */
@@ -41,7 +43,7 @@ function BareVerdict({ live }: { live: LiveSnapshot }) {
  * verdict (with its likely causes when allowed), the cloud on the sphere, the flat coverage map
  * and every check — recomputed from the samples logged so far.
  */
-export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true }: LiveViewProps) {
+export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true, stacked = false }: LiveViewProps) {
   const played = playedFraction(live);
   const mapped = live.view?.magnetometers.filter((m) => m.cellCounts) ?? [];
   return (
@@ -119,7 +121,7 @@ export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true }: 
       )}
 
       {live.view ? (
-        <div className={sphere ? "grid gap-5 xl:grid-cols-2" : ""}>
+        <div className={sphere && !stacked ? "grid gap-5 xl:grid-cols-2" : "space-y-5"}>
           {sphere && live.view.magnetometers.length ? <SphereViewLoader view={live.view} sensorLabels={sensorLabels} /> : null}
           {mapped.length ? (
             <section className="card space-y-4 p-4" aria-label="Coverage, flat">

@@ -126,3 +126,56 @@ export function setSoftIronEntry(m: [Triple, Triple, Triple], row: number, col: 
   next[col][row] = value;
   return next;
 }
+
+/**
+ * The part of the form an API field name ("spec.holds.wobbleDeg") belongs to, as text, so a
+ * server's message can be dropped once that part is edited. Names the form does not know fall
+ * back to the whole form: any edit clears them.
+ */
+export function draftPart(draft: ScenarioDraft, key: string): string {
+  const [head, group, item] = key.split(".");
+  if (head === "name" || head === "description" || head === "answer") return draft[head];
+  if (head !== "spec") return JSON.stringify(draft);
+  switch (group) {
+    case "site":
+      return item && item in draft.site ? draft.site[item as keyof ScenarioDraft["site"]] : JSON.stringify(draft.site);
+    case "date":
+    case "seed":
+    case "sampleRateHz":
+    case "path":
+    case "pathSeconds":
+    case "noiseMicrotesla":
+      return draft[group];
+    case "hardIronOffset":
+      return item !== undefined && draft.hardIronOffset[Number(item)] !== undefined
+        ? draft.hardIronOffset[Number(item)]
+        : draft.hardIronOffset.join(",");
+    case "softIron":
+      return JSON.stringify([draft.softIron, draft.softIronMatrix]);
+    case "secondCompass":
+      return JSON.stringify(draft.secondCompass);
+    case "currentCoupling":
+      return JSON.stringify(draft.currentCoupling);
+    case "clipLevelMicrotesla":
+      return JSON.stringify(draft.clip);
+    case "holds":
+      return JSON.stringify(draft.holds);
+    case "steel":
+      return JSON.stringify(draft.steel);
+    default:
+      return JSON.stringify(draft);
+  }
+}
+
+const SHOWN_FIELD =
+  /^(name|description|answer|spec\.(site\.(name|latitudeDeg|longitudeDeg|altitudeM)|date|seed|sampleRateHz|path|pathSeconds|noiseMicrotesla|hardIronOffset\.[0-2]|softIron(\.[0-2]\.[0-2])?|secondCompass\.(mountingRotation|declaredRotation|hardIronOffset\.[0-2])|currentCoupling\.(perAmpMicrotesla\.[0-2]|maxAmps)|clipLevelMicrotesla|holds\.(faces|wobbleDeg|tiltDeg)|steel\.distanceM))$/;
+
+/**
+ * A field name as the form shows it: a soft-iron entry below the diagonal is shown on its
+ * mirror above it. Null for a name no field of the form shows (its message goes in the summary).
+ */
+export function shownFieldKey(key: string): string | null {
+  const lower = /^spec\.softIron\.([0-2])\.([0-2])$/.exec(key);
+  const shown = lower && lower[1] > lower[2] ? `spec.softIron.${lower[2]}.${lower[1]}` : key;
+  return SHOWN_FIELD.test(shown) ? shown : null;
+}

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { draftFromScenario, setSoftIronEntry, type ScenarioDraft } from "@/components/classroom/scenario-draft";
+import { draftFromScenario, draftPart, setSoftIronEntry, shownFieldKey, type ScenarioDraft } from "@/components/classroom/scenario-draft";
 import { isCalendarDate, isPositiveDefinite, readScenarioBody, readScenarioSpec } from "@/components/classroom/scenario-draft-read";
 import { DEFAULT_SCENARIO, type ScenarioSpec } from "@/geometry/scenario";
 import type { Mat3 } from "@/geometry/types";
@@ -208,5 +208,39 @@ describe("isCalendarDate", () => {
     ["another format", "01/10/2026", false],
   ])("%s (%s) → %s", (_label, value, expected) => {
     expect(isCalendarDate(value)).toBe(expected);
+  });
+});
+
+describe("draftPart", () => {
+  const draft = draftFromScenario(EVERY_FAULT, { name: "Steel shed" });
+  test.each([
+    ["the name", "name", "Steel shed"],
+    ["a site coordinate", "spec.site.latitudeDeg", String(EVERY_FAULT.site.latitudeDeg)],
+    ["one offset axis", "spec.hardIronOffset.1", String(EVERY_FAULT.hardIronOffset[1])],
+    ["the path", "spec.path", "upper-half"],
+  ])("%s (%s)", (_label, key, expected) => {
+    expect(draftPart(draft, key)).toBe(expected);
+  });
+
+  test.each([
+    ["a holds field changes with the wobble", "spec.holds.wobbleDeg", (d: ScenarioDraft) => (d.holds.wobbleDeg = "7"), true],
+    ["a holds field does not change with the name", "spec.holds.wobbleDeg", (d: ScenarioDraft) => (d.name = "Other"), false],
+    ["an unknown field changes with anything", "spec.somethingNew", (d: ScenarioDraft) => (d.name = "Other"), true],
+  ])("%s", (_label, key, change, changes) => {
+    const edited = structuredClone(draft);
+    change(edited);
+    expect(draftPart(edited, key) !== draftPart(draft, key)).toBe(changes);
+  });
+});
+
+describe("shownFieldKey", () => {
+  test.each([
+    ["a field the form shows", "spec.site.altitudeM", "spec.site.altitudeM"],
+    ["a soft-iron entry below the diagonal, on its mirror", "spec.softIron.2.0", "spec.softIron.0.2"],
+    ["the whole soft-iron matrix", "spec.softIron", "spec.softIron"],
+    ["the whole spec", "spec", null],
+    ["a field the form does not have", "spec.steel.strength", null],
+  ])("%s", (_label, key, expected) => {
+    expect(shownFieldKey(key)).toBe(expected);
   });
 });

@@ -15,6 +15,7 @@ export default async function WorkspaceLayout({ children, params }: { children: 
   if (can("vehicle.view")) nav.push({ href: `${base}/vehicles`, label: "Fleet" });
   if (can("run.view")) nav.push({ href: `${base}/runs`, label: "Runs" });
   if (can("vehicle.view")) nav.push({ href: `${base}/sites`, label: "Sites" });
+  if (can("class.view")) nav.push({ href: `${base}/classroom`, label: "Classroom" });
   if (can("member.list")) nav.push({ href: `${base}/members`, label: "People" });
   if (can("audit.view")) nav.push({ href: `${base}/activity`, label: "Logbook" });
   if (can("workspace.update")) nav.push({ href: `${base}/settings`, label: "Settings" });

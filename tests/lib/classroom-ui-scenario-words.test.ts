@@ -1,0 +1,45 @@
+import { describe, expect, test } from "vitest";
+import { scenarioFaultWords } from "@/components/classroom/scenario-words";
+import { DEFAULT_SCENARIO } from "@/geometry/scenario";
+
+describe("scenarioFaultWords", () => {
+  test("the default scenario: the path, its offset and its soft iron", () => {
+    // |(8, −5, 12)| = √233 ≈ 15.3 µT, by hand.
+    expect(scenarioFaultWords(DEFAULT_SCENARIO)).toEqual(["Full tumble, 90 s", "hard iron 15 µT", "mild soft iron"]);
+  });
+
+  test.each([
+    [
+      "a module against its declaration",
+      { secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [0, 0, 0] as [number, number, number] } },
+      "second compass mounted yaw 90, declared none",
+    ],
+    [
+      "a module as declared",
+      { secondCompass: { mountingRotation: "yaw 90", declaredRotation: "yaw 90", hardIronOffset: [0, 0, 0] as [number, number, number] } },
+      "second compass (yaw 90)",
+    ],
+    [
+      "a motor run",
+      { currentCoupling: { perAmpMicrotesla: [0.3, 0, 0.4] as [number, number, number], maxAmps: 25 } },
+      "motor run to 25 A, 0.5 µT/A",
+    ],
+    ["saturation", { clipLevelMicrotesla: 55 }, "clips at ±55 µT"],
+    ["shaky holds", { holds: { faces: ["+z" as const], wobbleDeg: 6, tiltDeg: 0 } }, "1 hold, wobble 6.0°"],
+    ["steel", { steel: { distanceM: 1.2 } }, "steel at 1.2 m"],
+    ["a noisy sensor", { noiseMicrotesla: 2.5 }, "noise 2.5 µT"],
+    [
+      "custom soft iron",
+      {
+        softIron: [
+          [1, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ] as [[number, number, number], [number, number, number], [number, number, number]],
+      },
+      "custom soft iron",
+    ],
+  ])("%s", (_label, change, words) => {
+    expect(scenarioFaultWords({ ...DEFAULT_SCENARIO, ...change })).toContain(words);
+  });
+});

@@ -10,6 +10,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { stopQueue } from "@/lib/jobs/queue";
+import { DEFAULT_SCENARIO } from "@/geometry/scenario";
 import { idle, type ActionState } from "@/lib/action-state";
 import { closeDb, db } from "@/lib/db";
 import { inviteMember } from "@/lib/data/invitations";
@@ -87,9 +88,21 @@ interface WorkspaceRouteCase {
 
 const EDITORS: Role[] = ["owner", "technician", "builder"];
 const VIEWERS: Role[] = ["owner", "technician", "builder", "instructor"];
+const TEACHERS: Role[] = ["owner", "instructor"];
 // Resources made by the owner: a builder may see them but not edit them ("own only").
-const fixtures = {} as { vehicleId: string; sensorId: string; siteId: string; runId: string; processedRunId: string };
+const fixtures = {} as { vehicleId: string; sensorId: string; siteId: string; runId: string; processedRunId: string; scenarioId: string };
 const runParams = async () => ({ runId: fixtures.processedRunId });
+/** A scenario made by the owner, fresh for each call (one call deletes it). */
+const scenarioParams = async () => {
+  const { createScenario } = await import("@/lib/data/scenarios");
+  const scenario = await createScenario(workspace.id, users.owner.id, {
+    name: `Fixture ${uniqueTag()}`,
+    description: "",
+    spec: DEFAULT_SCENARIO,
+    answer: "",
+  });
+  return { scenarioId: scenario.id };
+};
 
 const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
   { file: "app/api/workspaces/[slug]/route.ts", method: "GET", expect: expectFor(200, ALL_ROLES), dataKey: "workspace" },
@@ -239,6 +252,57 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
     query: "?format=correction-json",
     dataKey: "magnetometers",
   },
+  // Teaching scenarios and class sessions: scenarios for those who teach; sessions listed for those who watch.
+  { file: "app/api/workspaces/[slug]/scenarios/route.ts", method: "GET", expect: expectFor(200, TEACHERS), dataKey: "scenarios" },
+  {
+    file: "app/api/workspaces/[slug]/scenarios/route.ts",
+    method: "POST",
+    expect: expectFor(201, TEACHERS),
+    body: () => ({ name: `Scenario ${uniqueTag()}`, spec: DEFAULT_SCENARIO, answer: "Nothing is wrong." }),
+    dataKey: "scenario",
+  },
+  {
+    file: "app/api/workspaces/[slug]/scenarios/[scenarioId]/route.ts",
+    method: "GET",
+    expect: expectFor(200, TEACHERS),
+    params: scenarioParams,
+    dataKey: "scenario",
+  },
+  {
+    file: "app/api/workspaces/[slug]/scenarios/[scenarioId]/route.ts",
+    method: "PATCH",
+    expect: expectFor(200, TEACHERS),
+    params: scenarioParams,
+    body: () => ({ answer: "Steel nearby." }),
+    dataKey: "scenario",
+  },
+  {
+    file: "app/api/workspaces/[slug]/scenarios/[scenarioId]/route.ts",
+    method: "DELETE",
+    expect: expectFor(200, TEACHERS),
+    params: scenarioParams,
+    dataKey: "deleted",
+  },
+  {
+    file: "app/api/workspaces/[slug]/scenarios/[scenarioId]/duplicate/route.ts",
+    method: "POST",
+    expect: expectFor(201, TEACHERS),
+    params: scenarioParams,
+    dataKey: "scenario",
+  },
+  {
+    file: "app/api/workspaces/[slug]/class-sessions/route.ts",
+    method: "GET",
+    expect: expectFor(200, ["owner", "technician", "instructor", "student"]),
+    dataKey: "sessions",
+  },
+  {
+    file: "app/api/workspaces/[slug]/class-sessions/route.ts",
+    method: "POST",
+    expect: expectFor(201, TEACHERS),
+    body: () => ({ scenarioId: fixtures.scenarioId, allowGuests: false }),
+    dataKey: "session",
+  },
   // Last: re-processing makes the run's current version a queued one.
   {
     file: "app/api/workspaces/[slug]/runs/[runId]/versions/route.ts",
@@ -307,6 +371,7 @@ beforeAll(async () => {
   fixtures.processedRunId = uploaded.runId;
   const run = await db().models.Run.findByPk(uploaded.runId);
   await processRunVersion(run!.currentVersionId!);
+  fixtures.scenarioId = (await scenarioParams()).scenarioId;
 });
 
 describe.each(WORKSPACE_ROUTES)("$method $file", (c) => {
@@ -331,6 +396,136 @@ describe.each(WORKSPACE_ROUTES)("$method $file", (c) => {
       expect(Object.keys(json).sort()).toEqual(["error", "message"]);
       expect(JSON.stringify(json)).not.toContain(workspace.name);
     }
+  });
+});
+
+/**
+ * Routes of one class session: the session's workspace decides (lib/classroom/session-guard.ts).
+ * Hosts control, ask and see the tally; watchers (and builders once they joined with the code)
+ * follow the session; participants answer, the host does not.
+ */
+interface SessionRouteCase {
+  file: string;
+  method: "GET" | "POST";
+  expect: Expect;
+  params?: () => Promise<Record<string, string>>;
+  body?: () => Promise<Record<string, unknown>>;
+  dataKey?: string;
+  /** Server-Sent Events: the first event must be a snapshot. */
+  stream?: boolean;
+}
+
+const HOSTS: Role[] = ["owner", "instructor"];
+const WATCHERS: Role[] = ["owner", "technician", "instructor", "student"];
+const CS = "app/api/class-sessions/[sessionId]";
+let classSessionId = "";
+
+async function freshQuestion(): Promise<string> {
+  const { askQuestion } = await import("@/lib/classroom/questions");
+  return (await askQuestion(classSessionId, { prompt: "Which fault?", choices: ["Steel nearby", "Not turned over"] })).id;
+}
+
+const SESSION_ROUTES: SessionRouteCase[] = [
+  { file: `${CS}/events/route.ts`, method: "GET", expect: expectFor(200, WATCHERS), stream: true },
+  { file: `${CS}/state/route.ts`, method: "GET", expect: expectFor(200, WATCHERS), dataKey: "live" },
+  {
+    file: `${CS}/control/route.ts`,
+    method: "POST",
+    expect: expectFor(200, HOSTS),
+    body: async () => ({ action: "step" }),
+    dataKey: "snapshot",
+  },
+  {
+    file: `${CS}/questions/route.ts`,
+    method: "POST",
+    expect: expectFor(201, HOSTS),
+    body: async () => ({ prompt: "Pass or fail?", choices: ["Pass", "Fail"] }),
+    dataKey: "question",
+  },
+  {
+    file: `${CS}/questions/[questionId]/close/route.ts`,
+    method: "POST",
+    expect: expectFor(200, HOSTS),
+    params: async () => ({ questionId: await freshQuestion() }),
+    dataKey: "question",
+  },
+  { file: `${CS}/tally/route.ts`, method: "GET", expect: expectFor(200, HOSTS), dataKey: "questions" },
+  {
+    file: `${CS}/answers/route.ts`,
+    method: "POST",
+    expect: expectFor(200, ["technician", "student"]),
+    body: async () => ({ questionId: await freshQuestion(), choice: 0 }),
+    dataKey: "ok",
+  },
+];
+
+describe("class session routes", () => {
+  beforeAll(async () => {
+    const { createClassSession } = await import("@/lib/data/class-sessions");
+    classSessionId = (
+      await createClassSession(workspace.id, users.owner.id, { scenarioId: fixtures.scenarioId, allowGuests: false, speed: 1 })
+    ).id;
+  });
+
+  afterAll(async () => {
+    const { stopLiveChannels } = await import("@/lib/classroom/live-channel");
+    const { stopClassHub } = await import("@/lib/classroom/notify-hub");
+    stopLiveChannels();
+    await stopClassHub();
+  });
+
+  describe.each(SESSION_ROUTES)("$method $file", (c) => {
+    test.each(ACTORS)("as %s", async (actor) => {
+      const extra = c.params ? await c.params() : {};
+      const body = c.body ? await c.body() : undefined;
+      actAsActor(actor);
+      const handler = await route(c.file, c.method);
+      const abort = new AbortController();
+      const request = new Request("http://test.local/api/class-sessions", {
+        method: c.method,
+        headers: { "content-type": "application/json" },
+        body: body ? JSON.stringify(body) : undefined,
+        signal: abort.signal,
+      });
+      const response = await handler(request, { params: Promise.resolve({ sessionId: classSessionId, ...extra }) });
+      const expected = c.expect[actor];
+      expect(response.status).toBe(expected);
+      if (expected < 300 && c.stream) {
+        const { ServerSentEventReader } = await import("@/lib/classroom/sse-reader");
+        const reader = new ServerSentEventReader(response.body!);
+        expect((await reader.nextOf("snapshot")).event).toBe("snapshot");
+        abort.abort();
+        await reader.cancel();
+        return;
+      }
+      const json = await response.json();
+      if (expected < 300) {
+        if (c.dataKey) expect(json[c.dataKey]).toBeDefined();
+      } else {
+        expect(Object.keys(json).sort()).toEqual(["error", "message"]);
+        expect(JSON.stringify(json)).not.toContain(workspace.name);
+      }
+    });
+  });
+
+  test("joining is public: the code decides, with or without a session", async () => {
+    const join = await route("app/api/join/route.ts", "POST");
+    const { joinCode } = (await db().models.ClassSession.findByPk(classSessionId))!;
+    const post = () =>
+      join(
+        new Request("http://test.local/api/join", {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: JSON.stringify({ code: joinCode, displayName: "Visitor" }),
+        }),
+        { params: Promise.resolve({}) },
+      );
+    actAs(null);
+    const anonymous = await post();
+    expect(anonymous.status).toBe(400);
+    expect((await anonymous.json()).error).toBe("sign-in-required");
+    actAsActor("builder");
+    expect(await (await post()).json()).toEqual({ sessionId: classSessionId, viewerPath: `/live/${classSessionId}` });
   });
 });
 
@@ -523,6 +718,8 @@ describe("completeness", () => {
       "GET app/api/workspaces/route.ts",
       "POST app/api/workspaces/route.ts",
       "GET app/api/health/route.ts",
+      ...SESSION_ROUTES.map((c) => `${c.method} ${c.file}`),
+      "POST app/api/join/route.ts",
     ]);
     const found: string[] = [];
     for (const file of walk("app").filter((f) => f.endsWith("route.ts"))) {

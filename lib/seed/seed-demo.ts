@@ -57,6 +57,7 @@ async function seedFleetOf(workspaceId: string, log: (line: string) => void): Pr
   });
   const { seedDemoFleet } = await import("@/lib/seed/demo-fleet");
   await seedDemoFleet(workspaceId, technician!.id, log);
+  await (await import("@/lib/seed/demo-scenarios")).seedDemoScenarios(log);
 }
 
 export function demoCredentialsTable(): string {

@@ -69,10 +69,10 @@ export function PlaybackControls({ snapshot, control }: { snapshot: SessionSnaps
             type="button"
             className="btn-primary min-w-24"
             onClick={() => send("play")}
-            disabled={busy || atEnd}
+            disabled={busy}
             aria-busy={pending === "play"}
           >
-            Play
+            {atEnd ? "Play from the start" : "Play"}
           </button>
         )}
         <span className="inline-flex items-center overflow-hidden rounded-lg border border-chart-rule">
@@ -122,7 +122,7 @@ export function PlaybackControls({ snapshot, control }: { snapshot: SessionSnaps
           </select>
         </span>
       </div>
-      {atEnd && !ended ? <p className="text-xs text-chart-muted">The whole capture has played: restart to play it again.</p> : null}
+      {atEnd && !ended ? <p className="text-xs text-chart-muted">The whole capture has played: play it again from the start, or talk over the end.</p> : null}
     </section>
   );
 }

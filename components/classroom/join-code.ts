@@ -15,7 +15,7 @@ export function joinCodeProblem(code: string): string | null {
   return null;
 }
 
-export const DISPLAY_NAME_MAX = 60;
+export const DISPLAY_NAME_MAX = 40;
 
 /** A guest's display name, trimmed, or a message saying what it lacks. */
 export function readDisplayName(typed: string): { name: string | null; problem: string | null } {

@@ -6,7 +6,7 @@ import { diagnose } from "@/geometry/verdict";
 import { SafetyCautions } from "@/components/run/safety-cautions";
 import { ConnectionBadge } from "./connection-badge";
 import { LiveView } from "./live-view";
-import { powersMotors, SCENARIO_SENSOR_LABELS, speedWords } from "./live-words";
+import { SCENARIO_SENSOR_LABELS, speedWords } from "./live-words";
 import { QuestionCard } from "./question-card";
 import { useSessionStream } from "./use-session-stream";
 
@@ -99,7 +99,7 @@ export function LiveViewer({ sessionId, signedIn }: { sessionId: string; signedI
           The instructor has frozen the screen to talk it over.
         </p>
       ) : null}
-      {powersMotors(snapshot) ? <SafetyCautions /> : null}
+      {snapshot.powersMotors ? <SafetyCautions /> : null}
       {snapshot.answerRevealed && snapshot.answer ? (
         <section className="card border-l-8 border-l-lox-500 p-5" aria-labelledby="answer-heading" data-testid="revealed-answer">
           <h2 id="answer-heading" className="text-xs font-semibold uppercase tracking-widest text-lox-600 dark:text-lox-300">

@@ -4,7 +4,6 @@
  * and the browser's text agree.
  */
 import { LIVE_MIN_SAMPLES, type LiveSnapshot } from "@/geometry/live-snapshot";
-import type { SessionSnapshot } from "./session-types";
 
 const count = (n: number) => n.toLocaleString("en-GB");
 
@@ -45,8 +44,3 @@ export function speedWords(speed: number): string {
 
 /** What the class calls the simulated compasses (the scenario's first and second compass). */
 export const SCENARIO_SENSOR_LABELS: Record<string, string> = { mag0: "board compass", mag1: "second compass" };
-
-/** The motors run in this session's capture: said by the server, or seen in the samples once they arrive. */
-export function powersMotors(snapshot: Pick<SessionSnapshot, "powersMotors" | "live">): boolean {
-  return snapshot.powersMotors ?? Boolean(snapshot.live.view?.series.current);
-}

@@ -3,7 +3,8 @@
  * same names the API uses for its `fields` (the request body's path: "spec.site.latitudeDeg",
  * "spec.hardIronOffset.1", "spec.softIron.0.2"), so the browser's messages and the server's
  * land in the same place. The limits keep a capture a class can watch and a preview the
- * browser can compute in well under a second.
+ * browser can compute in a few seconds at most. They are the server's own
+ * (lib/validations/classroom.ts); a unit test holds the two to the same verdicts.
  */
 import type { ScenarioSpec } from "@/geometry/scenario";
 import { mountingRotationByName } from "@/geometry/mounting-rotations";
@@ -23,25 +24,30 @@ export const SCENARIO_LIMITS = {
   latitudeDeg: { min: -90, max: 90, unit: "°" },
   longitudeDeg: { min: -180, max: 180, unit: "°" },
   altitudeM: { min: -500, max: 9000, unit: "m" },
-  seed: { min: 1, max: 2_147_483_647, unit: "", integer: true },
-  sampleRateHz: { min: 5, max: 100, unit: "Hz", integer: true },
+  seed: { min: 0, max: 2_147_483_647, unit: "", integer: true },
+  sampleRateHz: { min: 5, max: 200, unit: "Hz" },
   pathSeconds: { min: 10, max: 600, unit: "s" },
-  noiseMicrotesla: { min: 0, max: 10, unit: "µT" },
-  hardIronOffset: { min: -300, max: 300, unit: "µT" },
-  softIronDiagonal: { min: 0.5, max: 1.5, unit: "" },
-  softIronOffDiagonal: { min: -0.3, max: 0.3, unit: "" },
+  noiseMicrotesla: { min: 0, max: 5, unit: "µT" },
+  hardIronOffset: { min: -600, max: 600, unit: "µT" },
+  softIronDiagonal: { min: 0.5, max: 2, unit: "" },
+  softIronOffDiagonal: { min: -0.5, max: 0.5, unit: "" },
   perAmpMicrotesla: { min: -5, max: 5, unit: "µT/A" },
-  maxAmps: { min: 1, max: 150, unit: "A" },
-  clipLevelMicrotesla: { min: 10, max: 1000, unit: "µT" },
+  maxAmps: { min: 1, max: 200, unit: "A" },
+  clipLevelMicrotesla: { min: 10, max: 5000, unit: "µT" },
   wobbleDeg: { min: 0, max: 20, unit: "°" },
-  tiltDeg: { min: 0, max: 20, unit: "°" },
+  tiltDeg: { min: 0, max: 30, unit: "°" },
   steelDistanceM: { min: 0.2, max: 20, unit: "m" },
-  /** Samples of the rotation path (rate × seconds): more would slow every viewer's refit. */
-  pathSamples: 20_000,
+  /** Samples of the whole capture (holds, rotation, motor run): more would slow every viewer's refit. */
+  captureSamples: 60_000,
+  /** Smallest determinant of a custom soft-iron matrix: below it the sphere is squashed almost flat. */
+  softIronDeterminant: 0.25,
+  /** Capture dates: the span of the World Magnetic Models shipped with the app. */
+  firstDate: "2020-01-01",
+  lastDate: "2035-12-31",
   name: 120,
   description: 2000,
   answer: 2000,
-} as const satisfies Record<string, Range | number>;
+} as const satisfies Record<string, Range | number | string>;
 
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -67,13 +73,16 @@ function readTriple(raw: Triple, range: Range, key: string, errors: FieldErrors)
 
 /** Leading principal minors all positive (Sylvester's criterion) — a symmetric matrix that is a real distortion. */
 export function isPositiveDefinite(m: Mat3): boolean {
-  const d1 = m[0][0];
   const d2 = m[0][0] * m[1][1] - m[0][1] * m[1][0];
-  const d3 =
+  return m[0][0] > 0 && d2 > 0 && determinant(m) > 0;
+}
+
+function determinant(m: Mat3): number {
+  return (
     m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) -
     m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0]) +
-    m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]);
-  return d1 > 0 && d2 > 0 && d3 > 0;
+    m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0])
+  );
 }
 
 function readSoftIron(draft: ScenarioDraft, errors: FieldErrors): ScenarioSpec["softIron"] {
@@ -90,14 +99,25 @@ function readSoftIron(draft: ScenarioDraft, errors: FieldErrors): ScenarioSpec["
     ),
   ) as Mat3;
   const typed = Object.keys(errors).some((key) => key.startsWith("spec.softIron."));
-  if (!typed && !isPositiveDefinite(m))
+  if (typed) return m;
+  if (!isPositiveDefinite(m))
     errors["spec.softIron"] = "This matrix folds space over itself: make the diagonal larger or the cross terms smaller.";
+  else if (determinant(m) < SCENARIO_LIMITS.softIronDeterminant)
+    errors["spec.softIron"] = "This matrix squashes the sphere almost flat: make the diagonal larger.";
   return m;
 }
 
 function readRotation(name: string, key: string, errors: FieldErrors): string {
   if (!mountingRotationByName(name)) errors[key] = `“${name}” is not a standard mounting rotation.`;
   return name;
+}
+
+/**
+ * Seconds the simulated capture lasts: about 7 s per accelerometer hold (4 s still, 3 s to
+ * turn), the rotation, and the motor run's 23 s at the end (the simulator's defaults).
+ */
+export function captureSeconds(spec: Pick<ScenarioSpec, "pathSeconds" | "holds" | "currentCoupling">): number {
+  return spec.pathSeconds + (spec.holds ? spec.holds.faces.length * 7 : 0) + (spec.currentCoupling ? 23 : 0);
 }
 
 /** A valid YYYY-MM-DD calendar date (not 2026-02-30). */
@@ -125,14 +145,11 @@ export function readScenarioSpec(draft: ScenarioDraft): { spec: ScenarioSpec | n
     altitudeM: readNumber(draft.site.altitudeM, L.altitudeM, "spec.site.altitudeM", errors),
   };
   if (!isCalendarDate(draft.date)) errors["spec.date"] = "Give a date as YYYY-MM-DD.";
-  else if (draft.date < "2000-01-01" || draft.date > "2040-12-31") errors["spec.date"] = "Give a date between 2000 and 2040.";
+  else if (draft.date < L.firstDate || draft.date > L.lastDate)
+    errors["spec.date"] = "Choose a date between 2020 and 2035, the span of the World Magnetic Model.";
   const seed = readNumber(draft.seed, L.seed, "spec.seed", errors);
   const sampleRateHz = readNumber(draft.sampleRateHz, L.sampleRateHz, "spec.sampleRateHz", errors);
   const pathSeconds = readNumber(draft.pathSeconds, L.pathSeconds, "spec.pathSeconds", errors);
-  if (!errors["spec.sampleRateHz"] && !errors["spec.pathSeconds"] && sampleRateHz * pathSeconds > L.pathSamples) {
-    errors["spec.pathSeconds"] =
-      `${Math.round(sampleRateHz * pathSeconds).toLocaleString("en")} samples is too many for a class to follow live: keep rate × length under ${L.pathSamples.toLocaleString("en")} (at ${sampleRateHz} Hz, ${Math.floor(L.pathSamples / sampleRateHz)} s at most).`;
-  }
   const noiseMicrotesla = readNumber(draft.noiseMicrotesla, L.noiseMicrotesla, "spec.noiseMicrotesla", errors);
   const hardIronOffset = readTriple(draft.hardIronOffset, L.hardIronOffset, "spec.hardIronOffset", errors);
   const softIron = readSoftIron(draft, errors);
@@ -168,6 +185,13 @@ export function readScenarioSpec(draft: ScenarioDraft): { spec: ScenarioSpec | n
     };
   }
   const steel = draft.steel.on ? { distanceM: readNumber(draft.steel.distanceM, L.steelDistanceM, "spec.steel.distanceM", errors) } : null;
+
+  if (!errors["spec.sampleRateHz"] && !errors["spec.pathSeconds"]) {
+    const samples = Math.round(captureSeconds({ pathSeconds, holds, currentCoupling }) * sampleRateHz);
+    if (samples > L.captureSamples)
+      errors["spec.sampleRateHz"] =
+        `${samples.toLocaleString("en-GB")} samples is more than a class can follow live (at most ${L.captureSamples.toLocaleString("en-GB")}): lower the sample rate or shorten the rotation.`;
+  }
 
   if (Object.keys(errors).length) return { spec: null, errors };
   return {

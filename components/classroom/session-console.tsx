@@ -8,7 +8,7 @@ import { ConnectionBadge } from "./connection-badge";
 import { PlaybackControls, useControl } from "./console-controls";
 import { JoinCodePanel } from "./join-code-panel";
 import { LiveView } from "./live-view";
-import { powersMotors, SCENARIO_SENSOR_LABELS } from "./live-words";
+import { SCENARIO_SENSOR_LABELS } from "./live-words";
 import { QuestionComposer } from "./question-composer";
 import type { SessionSnapshot } from "./session-types";
 import { TallyPanel } from "./tally-panel";
@@ -162,7 +162,7 @@ export function SessionConsole({ slug, sessionId }: { slug: string; sessionId: s
           {control.problem}
         </p>
       ) : null}
-      {powersMotors(snapshot) ? <SafetyCautions /> : null}
+      {snapshot.powersMotors ? <SafetyCautions /> : null}
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-6">

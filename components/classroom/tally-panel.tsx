@@ -93,8 +93,8 @@ function QuestionTally({
                 </tr>
               </thead>
               <tbody className="divide-y divide-chart-rule">
-                {answers.map((a) => (
-                  <tr key={a.participant} data-testid="tally-answer">
+                {answers.map((a, index) => (
+                  <tr key={`${index}-${a.participant}`} data-testid="tally-answer">
                     <td className="py-1 pr-3">{a.participant}</td>
                     <td className="py-1">{a.choice}</td>
                   </tr>

@@ -1,6 +1,5 @@
 import { describe, expect, test } from "vitest";
 import { joinCodeProblem, normaliseJoinCode, readDisplayName } from "@/components/classroom/join-code";
-import { powersMotors } from "@/components/classroom/live-words";
 
 describe("normaliseJoinCode", () => {
   test.each([
@@ -31,24 +30,11 @@ describe("readDisplayName", () => {
     ["a name", "  Noor  ", "Noor", null],
     ["inner spaces squeezed", "Noor   Haddad", "Noor Haddad", null],
     ["blank", "   ", null, /Give a name/],
-    ["too long", "x".repeat(61), null, /under 60/],
+    ["too long", "x".repeat(41), null, /under 40/],
   ])("%s", (_label, typed, name, problem) => {
     const read = readDisplayName(typed);
     expect(read.name).toBe(name);
     if (problem) expect(read.problem).toMatch(problem);
     else expect(read.problem).toBeNull();
-  });
-});
-
-describe("powersMotors", () => {
-  const live = (current: number[] | null) => ({ view: current === undefined ? null : { series: { current } } }) as never;
-  test.each([
-    ["the server says so", { powersMotors: true, live: live(null) }, true],
-    ["the server says not, whatever the samples", { powersMotors: false, live: live([0, 1]) }, false],
-    ["an older server: a current series in the samples", { live: live([0, 4, 9]) }, true],
-    ["an older server: no current series", { live: live(null) }, false],
-    ["an older server, before the first fit", { live: { view: null } as never }, false],
-  ])("%s", (_label, snapshot, expected) => {
-    expect(powersMotors(snapshot)).toBe(expected);
   });
 });

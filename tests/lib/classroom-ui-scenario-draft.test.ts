@@ -2,6 +2,7 @@ import { describe, expect, test } from "vitest";
 import { draftFromScenario, draftPart, setSoftIronEntry, shownFieldKey, type ScenarioDraft } from "@/components/classroom/scenario-draft";
 import { isCalendarDate, isPositiveDefinite, readScenarioBody, readScenarioSpec } from "@/components/classroom/scenario-draft-read";
 import { DEFAULT_SCENARIO, type ScenarioSpec } from "@/geometry/scenario";
+import { scenarioSpecSchema } from "@/lib/validations/classroom";
 import type { Mat3 } from "@/geometry/types";
 
 // Invented scenarios (demo values), chosen to switch every optional fault on.
@@ -61,12 +62,17 @@ describe("readScenarioSpec: one message per bad field, under the API's field nam
     ["words for altitude", (d: ScenarioDraft) => (d.site.altitudeM = "high"), "spec.site.altitudeM", /not a number/],
     ["no site name", (d: ScenarioDraft) => (d.site.name = ""), "spec.site.name", /Name the site/],
     ["a date that does not exist", (d: ScenarioDraft) => (d.date = "2026-02-30"), "spec.date", /YYYY-MM-DD/],
-    ["a date far outside the models", (d: ScenarioDraft) => (d.date = "1990-01-01"), "spec.date", /between 2000 and 2040/],
+    ["a date far outside the models", (d: ScenarioDraft) => (d.date = "2019-12-31"), "spec.date", /between 2020 and 2035/],
     ["a fractional seed", (d: ScenarioDraft) => (d.seed = "1.5"), "spec.seed", /whole number/],
-    ["too slow a logger", (d: ScenarioDraft) => (d.sampleRateHz = "2"), "spec.sampleRateHz", /between 5 Hz and 100 Hz/],
-    ["too long a capture", (d: ScenarioDraft) => ((d.sampleRateHz = "100"), (d.pathSeconds = "300")), "spec.pathSeconds", /too many/],
+    ["too slow a logger", (d: ScenarioDraft) => (d.sampleRateHz = "2"), "spec.sampleRateHz", /between 5 Hz and 200 Hz/],
+    [
+      "too long a capture",
+      (d: ScenarioDraft) => ((d.sampleRateHz = "200"), (d.pathSeconds = "301")),
+      "spec.sampleRateHz",
+      /60,200 samples/,
+    ],
     ["negative noise", (d: ScenarioDraft) => (d.noiseMicrotesla = "-1"), "spec.noiseMicrotesla", /between 0 µT/],
-    ["one offset axis out of range", (d: ScenarioDraft) => (d.hardIronOffset[2] = "900"), "spec.hardIronOffset.2", /300 µT/],
+    ["one offset axis out of range", (d: ScenarioDraft) => (d.hardIronOffset[2] = "900"), "spec.hardIronOffset.2", /600 µT/],
     [
       "custom soft iron with a tiny diagonal",
       (d: ScenarioDraft) => ((d.softIron = "custom"), (d.softIronMatrix[1][1] = "0.1")),
@@ -242,5 +248,92 @@ describe("shownFieldKey", () => {
     ["a field the form does not have", "spec.steel.strength", null],
   ])("%s", (_label, key, expected) => {
     expect(shownFieldKey(key)).toBe(expected);
+  });
+});
+
+describe("readScenarioSpec agrees with the server's schema (lib/validations/classroom.ts)", () => {
+  // Each limit just inside and just outside; the two must accept and refuse the same specs.
+  const at = (change: Partial<ScenarioSpec>): ScenarioSpec => ({ ...EVERY_FAULT, ...change });
+  test.each<[string, ScenarioSpec]>([
+    ["every fault on", EVERY_FAULT],
+    ["the default", DEFAULT_SCENARIO],
+    ["seed 0", at({ seed: 0 })],
+    ["first date", at({ date: "2020-01-01" })],
+    ["before the first date", at({ date: "2019-12-31" })],
+    ["last date", at({ date: "2035-12-31" })],
+    ["after the last date", at({ date: "2036-01-01" })],
+    ["slowest logger", at({ sampleRateHz: 5 })],
+    ["too slow a logger", at({ sampleRateHz: 4.9 })],
+    ["fastest logger, short rotation", { ...DEFAULT_SCENARIO, sampleRateHz: 200, pathSeconds: 300 }],
+    ["too fast a logger", { ...DEFAULT_SCENARIO, sampleRateHz: 201, pathSeconds: 60 }],
+    ["most samples", { ...DEFAULT_SCENARIO, sampleRateHz: 100, pathSeconds: 600 }],
+    ["too many samples with holds and a motor run", at({ sampleRateHz: 100, pathSeconds: 560 })],
+    ["noisiest", at({ noiseMicrotesla: 5 })],
+    ["too noisy", at({ noiseMicrotesla: 5.1 })],
+    ["largest offset", at({ hardIronOffset: [600, -600, 0] })],
+    ["too large an offset", at({ hardIronOffset: [601, 0, 0] })],
+    [
+      "soft-iron diagonal 2",
+      at({
+        softIron: [
+          [2, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ],
+      }),
+    ],
+    [
+      "soft-iron diagonal above 2",
+      at({
+        softIron: [
+          [2.1, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ],
+      }),
+    ],
+    [
+      "soft-iron cross term 0.5",
+      at({
+        softIron: [
+          [1, 0.5, 0],
+          [0.5, 1, 0],
+          [0, 0, 1],
+        ],
+      }),
+    ],
+    [
+      "soft-iron cross term above 0.5",
+      at({
+        softIron: [
+          [1, 0.51, 0],
+          [0.51, 1, 0],
+          [0, 0, 1],
+        ],
+      }),
+    ],
+    [
+      "soft iron squashed flat",
+      at({
+        softIron: [
+          [0.5, 0, 0],
+          [0, 0.5, 0],
+          [0, 0, 0.9],
+        ],
+      }),
+    ],
+    ["most current", at({ currentCoupling: { perAmpMicrotesla: [5, -5, 0], maxAmps: 200 } })],
+    ["too much current", at({ currentCoupling: { perAmpMicrotesla: [1, 0, 0], maxAmps: 201 } })],
+    ["highest clip level", at({ clipLevelMicrotesla: 5000 })],
+    ["clip level too low", at({ clipLevelMicrotesla: 9 })],
+    ["most tilt", at({ holds: { faces: ["+z"], wobbleDeg: 20, tiltDeg: 30 } })],
+    ["too much wobble", at({ holds: { faces: ["+z"], wobbleDeg: 21, tiltDeg: 0 } })],
+    ["steel closest", at({ steel: { distanceM: 0.2 } })],
+    ["steel too close", at({ steel: { distanceM: 0.19 } })],
+    ["altitude too high", at({ site: { ...EVERY_FAULT.site, altitudeM: 9001 } })],
+  ])("%s", (_label, spec) => {
+    const server = scenarioSpecSchema.safeParse(spec).success;
+    const client = readScenarioSpec(draftFromScenario(spec)).spec !== null;
+    expect(client).toBe(server);
   });
 });

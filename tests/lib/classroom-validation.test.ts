@@ -1,0 +1,133 @@
+import { describe, expect, test } from "vitest";
+import { DEFAULT_SCENARIO, type ScenarioSpec } from "@/geometry/scenario";
+import { answerSchema, controlSchema, joinSchema, questionSchema, scenarioSchema, scenarioSpecSchema } from "@/lib/validations/classroom";
+
+/** The first issue's path and message, or null when the value is valid. */
+function firstIssue(
+  schema: { safeParse: (v: unknown) => { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } } },
+  value: unknown,
+) {
+  const result = schema.safeParse(value);
+  if (result.success) return null;
+  const issue = result.error!.issues[0];
+  return { path: issue.path.join("."), message: issue.message };
+}
+
+const spec = (over: Partial<Record<keyof ScenarioSpec, unknown>>) => ({ ...DEFAULT_SCENARIO, ...over });
+
+describe("scenarioSpecSchema", () => {
+  test("the default scenario is valid", () => {
+    expect(firstIssue(scenarioSpecSchema, DEFAULT_SCENARIO)).toBeNull();
+  });
+
+  test.each([
+    [
+      "a custom soft-iron matrix near the identity",
+      {
+        softIron: [
+          [1.1, 0.05, 0],
+          [0.05, 0.95, 0],
+          [0, 0, 1],
+        ],
+      },
+    ],
+    [
+      "a second compass declared as mounted",
+      { secondCompass: { mountingRotation: "yaw 90", declaredRotation: "yaw 90", hardIronOffset: [1, 2, 3] } },
+    ],
+    ["six holds with wobble", { holds: { faces: ["+z", "-z", "+x", "-x", "+y", "-y"], wobbleDeg: 3, tiltDeg: 0 } }],
+    ["current coupling", { currentCoupling: { perAmpMicrotesla: [0.3, 0, -0.2], maxAmps: 30 } }],
+  ])("valid: %s", (_label, over) => {
+    expect(firstIssue(scenarioSpecSchema, spec(over))).toBeNull();
+  });
+
+  test.each([
+    ["latitude out of range", { site: { ...DEFAULT_SCENARIO.site, latitudeDeg: 91 } }, "site.latitudeDeg", /Latitude/],
+    ["a date that is not a date", { date: "10/01/2026" }, "date", /YYYY-MM-DD/],
+    ["a date outside the model's span", { date: "1999-01-01" }, "date", /2020 and 2035/],
+    ["a fractional seed", { seed: 1.5 }, "seed", /whole number/],
+    ["an unknown path", { path: "loop" }, "path", /rotation path/],
+    ["a two-number offset", { hardIronOffset: [1, 2] }, "hardIronOffset", /three numbers/],
+    ["an offset too large", { hardIronOffset: [1, 2, 900] }, "hardIronOffset.2", /between -600 and 600/],
+    ["an unknown soft-iron level", { softIron: "medium" }, "softIron", /none, mild, strong/],
+    [
+      "a soft-iron diagonal far from 1",
+      {
+        softIron: [
+          [0.3, 0, 0],
+          [0, 1, 0],
+          [0, 0, 1],
+        ],
+      },
+      "softIron.0.0",
+      /diagonal entries must be between 0\.5 and 2/,
+    ],
+    [
+      "a flattening soft-iron matrix",
+      {
+        softIron: [
+          [0.5, 0.5, 0],
+          [0.5, 0.5, 0],
+          [0, 0, 1],
+        ],
+      },
+      "softIron",
+      /flat/,
+    ],
+    [
+      "a rotation that is not standard",
+      { secondCompass: { mountingRotation: "yaw 91", declaredRotation: "none", hardIronOffset: [0, 0, 0] } },
+      "secondCompass.mountingRotation",
+      /standard mounting rotations/,
+    ],
+    ["a face held twice", { holds: { faces: ["+z", "+z"], wobbleDeg: 0, tiltDeg: 0 } }, "holds.faces", /once/],
+    ["no current", { currentCoupling: { perAmpMicrotesla: [0, 0, 0], maxAmps: 0 } }, "currentCoupling.maxAmps", /Maximum current/],
+    ["too long a capture", { sampleRateHz: 200, pathSeconds: 600 }, "sampleRateHz", /60,000 samples/],
+  ])("refused: %s", (_label, over, path, message) => {
+    const issue = firstIssue(scenarioSpecSchema, spec(over));
+    expect(issue?.path).toBe(path);
+    expect(issue?.message).toMatch(message);
+  });
+});
+
+describe("scenarioSchema", () => {
+  test("a name is needed; description and answer default to empty", () => {
+    expect(firstIssue(scenarioSchema, { name: " ", spec: DEFAULT_SCENARIO })).toEqual({
+      path: "name",
+      message: "Give the scenario a name.",
+    });
+    expect(scenarioSchema.parse({ name: "Steel", spec: DEFAULT_SCENARIO })).toMatchObject({ description: "", answer: "" });
+  });
+});
+
+describe("controlSchema", () => {
+  test.each([
+    ["play", { action: "play" }, null],
+    ["step with the default length", { action: "step" }, null],
+    ["speed without a speed", { action: "speed" }, "speed"],
+    ["too fast", { action: "speed", speed: 16 }, "speed"],
+    ["an unknown action", { action: "rewind" }, "action"],
+  ])("%s", (_label, body, path) => {
+    expect(firstIssue(controlSchema, body)?.path ?? null).toBe(path);
+  });
+
+  test("step defaults to 5 s of capture", () => {
+    expect(controlSchema.parse({ action: "step" }).stepSeconds).toBe(5);
+  });
+});
+
+describe("questionSchema, answerSchema, joinSchema", () => {
+  test.each([
+    ["a question with two choices", questionSchema, { prompt: "Pass or fail?", choices: ["Pass", "Fail"] }, null],
+    ["one choice", questionSchema, { prompt: "?", choices: ["Pass"] }, "choices"],
+    ["seven choices", questionSchema, { prompt: "?", choices: ["a", "b", "c", "d", "e", "f", "g"] }, "choices"],
+    ["the same choice twice", questionSchema, { prompt: "?", choices: ["Pass", "pass"] }, "choices"],
+    ["an answer", answerSchema, { questionId: "3b241101-e2bb-4255-8caf-4136c566a962", choice: 1 }, null],
+    ["a negative choice", answerSchema, { questionId: "3b241101-e2bb-4255-8caf-4136c566a962", choice: -1 }, "choice"],
+    ["a join with a name", joinSchema, { code: "K7MX3D", displayName: "Sam" }, null],
+    ["a join without a code", joinSchema, { code: "" }, "code"],
+    ["a long display name", joinSchema, { code: "K7MX3D", displayName: "x".repeat(41) }, "displayName"],
+  ])("%s", (_label, schema, body, path) => {
+    expect(firstIssue(schema as never, body)?.path ?? null).toBe(path);
+  });
+});

@@ -163,6 +163,9 @@ async function main(): Promise<void> {
   // The product's whole flow, from upload to results, through storage, the queue and the worker.
   const { benchEndToEnd } = await import("./e2e-bench");
   await benchEndToEnd();
+  // Live class sessions: 60 viewers on Server-Sent Events against a production server.
+  const { benchClassroom } = await import("./class-bench");
+  await benchClassroom();
 }
 
 main().catch((error) => {

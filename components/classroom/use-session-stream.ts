@@ -25,8 +25,9 @@ const settled = (s: SessionSnapshot) => s.status === "ended" && s.runId !== null
 /**
  * Follows one class session over Server-Sent Events. The first paint comes from `/state`;
  * the stream's first event is always the full current snapshot, so every reconnection catches
- * up at once. When the stream drops, the page says "reconnecting" and opens a new one after a
- * short, growing wait (sooner when the browser comes back online or the tab is shown again).
+ * up at once. When the stream drops (or the browser says it is offline), the page says
+ * "reconnecting" and opens a new one after a short, growing wait — at once when the browser
+ * comes back online or the tab is shown again.
  * The host also gets the tally of answers.
  */
 export function useSessionStream(sessionId: string, { host = false }: { host?: boolean } = {}): SessionStream {
@@ -112,6 +113,16 @@ export function useSessionStream(sessionId: string, { host = false }: { host?: b
     const now = () => {
       if (!stopped && source === null) schedule(0);
     };
+    // The browser knows before the stream does when the network has gone: say so at once.
+    const offline = () => {
+      if (stopped || source === null) return;
+      source.close();
+      source = null;
+      attempts += 1;
+      setAttempt(attempts);
+      setStatus("reconnecting");
+      schedule(reconnectDelayMs(attempts));
+    };
     const onVisible = () => {
       if (document.visibilityState === "visible") now();
     };
@@ -122,12 +133,14 @@ export function useSessionStream(sessionId: string, { host = false }: { host?: b
       open();
     })();
     window.addEventListener("online", now);
+    window.addEventListener("offline", offline);
     document.addEventListener("visibilitychange", onVisible);
     return () => {
       stopped = true;
       source?.close();
       if (timer) clearTimeout(timer);
       window.removeEventListener("online", now);
+      window.removeEventListener("offline", offline);
       document.removeEventListener("visibilitychange", onVisible);
     };
   }, [base, host, accept, reloadTally]);

@@ -545,6 +545,28 @@ describe("live updates over Server-Sent Events", () => {
     }
   });
 
+  test("while it plays, one snapshot per tick, each a whole tick's samples further on", async () => {
+    const session = await newSession();
+    const viewer = await connect(session.id, student.id);
+    await viewer.reader.nextOf("snapshot");
+    const played = (await control(session.id, { action: "play" })).json.snapshot as SessionSnapshot;
+    const perTick = samplesPerTick(1, SPEC.sampleRateHz);
+    const seen: { position: number; id: string | null; at: number }[] = [];
+    while (seen.length < 3) {
+      const event = await viewer.reader.nextOf("snapshot", 5000, (e) => parse(e.data).stateVersion === played.stateVersion);
+      seen.push({ position: parse(event.data).live.position, id: event.id, at: Date.now() });
+    }
+    // The first may still be position 0 (the play itself); after that one tick's samples each time, no repeats.
+    const ticks = seen.map((s) => s.position / perTick);
+    for (const tick of ticks) expect(Number.isInteger(tick)).toBe(true);
+    for (let i = 1; i < ticks.length; i++) expect(ticks[i]).toBe(ticks[i - 1] + 1);
+    expect(new Set(seen.map((s) => s.id)).size).toBe(seen.length);
+    expect(seen[2].at - seen[1].at).toBeGreaterThan(800);
+    viewer.abort.abort();
+    await viewer.reader.cancel();
+    await control(session.id, { action: "end" });
+  });
+
   test("the host's closed tab does not end the session", async () => {
     const session = await newSession();
     const hostStream = await connect(session.id, host.id);
@@ -587,6 +609,28 @@ describe("the end of a session", () => {
     const nextRun = ((await control(next.id, { action: "end" })).json.snapshot as SessionSnapshot).runId!;
     expect((await db().models.Run.findByPk(nextRun))!.vehicleId).toBe(run!.vehicleId);
     expect(await db().models.Vehicle.count({ where: { workspaceId: workspace.id, name: "Classroom simulator" } })).toBe(1);
+  });
+
+  test("a scenario that runs motors says so from the start, and its run is marked as powering motors", async () => {
+    actAs(host.id);
+    const made = await call(
+      `${WS}/scenarios/route.ts`,
+      "POST",
+      { slug: workspace.slug },
+      { body: { name: `Wiring ${uniqueTag()}`, spec: { ...SPEC, currentCoupling: { perAmpMicrotesla: [0.3, 0.1, -0.2], maxAmps: 30 } } } },
+    );
+    const created = await call(
+      `${WS}/class-sessions/route.ts`,
+      "POST",
+      { slug: workspace.slug },
+      { body: { scenarioId: (made.json.scenario as { id: string }).id } },
+    );
+    const session = created.json.session as { id: string };
+    expect((await state(session.id, student.id)).powersMotors).toBe(true);
+    await control(session.id, { action: "play" });
+    const runId = ((await control(session.id, { action: "end" })).json.snapshot as SessionSnapshot).runId!;
+    expect((await db().models.Run.findByPk(runId))!.powersMotors).toBe(true);
+    expect((await state(session.id, host.id)).powersMotors).toBe(true);
   });
 
   test("a session that never started ends without a run", async () => {

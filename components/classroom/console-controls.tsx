@@ -122,7 +122,9 @@ export function PlaybackControls({ snapshot, control }: { snapshot: SessionSnaps
           </select>
         </span>
       </div>
-      {atEnd && !ended ? <p className="text-xs text-chart-muted">The whole capture has played: play it again from the start, or talk over the end.</p> : null}
+      {atEnd && !ended ? (
+        <p className="text-xs text-chart-muted">The whole capture has played: play it again from the start, or talk over the end.</p>
+      ) : null}
     </section>
   );
 }

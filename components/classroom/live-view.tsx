@@ -16,8 +16,6 @@ export interface LiveViewProps {
   sensorLabels?: Record<string, string>;
   /** Leave out the 3D view (the builder's preview draws it only on demand). */
   sphere?: boolean;
-  /** One column whatever the width (a narrow panel beside a form). */
-  stacked?: boolean;
 }
 
 /** The verdict without its likely causes, so students work the fault out from the checks. */
@@ -43,7 +41,7 @@ function BareVerdict({ live }: { live: LiveSnapshot }) {
  * verdict (with its likely causes when allowed), the cloud on the sphere, the flat coverage map
  * and every check — recomputed from the samples logged so far.
  */
-export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true, stacked = false }: LiveViewProps) {
+export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true }: LiveViewProps) {
   const played = playedFraction(live);
   const mapped = live.view?.magnetometers.filter((m) => m.cellCounts) ?? [];
   return (
@@ -121,12 +119,14 @@ export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true, st
       )}
 
       {live.view ? (
-        <div className={sphere && !stacked ? "grid gap-5 xl:grid-cols-2" : "space-y-5"}>
+        // The 3D view lays out its own side panel, so it gets the full width; the flat maps follow.
+        <div className="space-y-5">
           {sphere && live.view.magnetometers.length ? <SphereViewLoader view={live.view} sensorLabels={sensorLabels} /> : null}
           {mapped.length ? (
-            <section className="card space-y-4 p-4" aria-label="Coverage, flat">
+            <section className={`card grid gap-4 p-4 ${mapped.length > 1 ? "lg:grid-cols-2" : ""}`} aria-label="Coverage, flat">
               {mapped.map((m) => (
                 <CoverageMap
+                  className={mapped.length > 1 ? undefined : "mx-auto max-w-3xl"}
                   key={m.sensor}
                   magnetometer={m}
                   sensorLabel={sensorLabels[m.sensor] ? `${m.sensor} · ${sensorLabels[m.sensor]}` : m.sensor}

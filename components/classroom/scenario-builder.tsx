@@ -112,7 +112,7 @@ export function ScenarioBuilder({ slug, scenario, notice }: { slug: string; scen
   const touch = (key: string) => setTouched((previous) => new Set(previous).add(key));
 
   return (
-    <div className="grid gap-8 xl:grid-cols-[34rem_minmax(0,1fr)]">
+    <div className="grid gap-6 xl:grid-cols-[28rem_minmax(0,1fr)]">
       <form
         onSubmit={onSubmit}
         noValidate

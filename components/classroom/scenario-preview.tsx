@@ -45,7 +45,7 @@ export function ScenarioPreview({ spec }: { spec: ScenarioSpec | null }) {
       {preview ? (
         <div className={busy || stale ? "opacity-60 transition-opacity" : "transition-opacity"}>
           {preview.powersMotors ? <SafetyCautions className="mb-4" /> : null}
-          <LiveView live={preview.snapshot} diagnosis={preview.diagnosis} sensorLabels={SCENARIO_SENSOR_LABELS} sphere={sphere} stacked />
+          <LiveView live={preview.snapshot} diagnosis={preview.diagnosis} sensorLabels={SCENARIO_SENSOR_LABELS} sphere={sphere} />
         </div>
       ) : (
         <div className="card h-64 animate-pulse" aria-hidden />

@@ -130,9 +130,15 @@ test("an instructor runs a session; a student joins with the code, watches the v
   // The host sees the answer from the start; the class does not.
   expect(await consolePage.getByTestId("console-answer").textContent()).toContain(FULL_TURN_ANSWER);
 
-  // The student joins with the code, typed in lower case with a space, as people do.
-  const pupil = await newPage();
-  await signIn(pupil.page, people.student.email, "/join");
+  // The student sees the session listed in the workspace (in the dark scheme, to check it too), then joins
+  // with the code, typed in lower case with a space, as people do.
+  const pupil = await newPage({ colorScheme: "dark" });
+  await signIn(pupil.page, people.student.email, `/w/${slug}/classroom`);
+  await expect.poll(() => pupil.page.getByTestId("session-row").count()).toBe(1);
+  expect(await pupil.page.getByTestId("session-row").textContent()).toContain("Full turn on the saltmarsh");
+  expect(await pupil.page.getByRole("link", { name: "Compose a scenario" }).count()).toBe(0);
+  await pupil.page.getByRole("link", { name: "Join with a code" }).click();
+  await pupil.page.waitForURL(`${baseUrl}/join`);
   await pupil.page.getByLabel("Session code").fill(`${code.slice(0, 3).toLowerCase()} ${code.slice(3).toLowerCase()}`);
   await pupil.page.getByRole("button", { name: "Join" }).click();
   await pupil.page.waitForURL(`${baseUrl}/live/${sessionId}`);
@@ -285,6 +291,8 @@ test("a guest joins a session that allows guests, sees the motor cautions, and i
 test("the scenario builder checks each field, previews at once, saves, duplicates and deletes", async () => {
   const { context, page } = await newPage({ width: 1440 });
   await signIn(page, people.instructor.email, `/w/${slug}/classroom`);
+  await page.locator('[data-testid="scenario-card"]').first().waitFor();
+  await page.screenshot({ path: artefactPath("classroom-list.png"), fullPage: true });
   await page.getByRole("link", { name: "Compose a scenario" }).click();
   await page.waitForURL(`${baseUrl}/w/${slug}/classroom/scenarios/new`);
 

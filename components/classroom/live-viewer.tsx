@@ -108,7 +108,9 @@ export function LiveViewer({ sessionId, signedIn }: { sessionId: string; signedI
           <p className="mt-1 text-lg">{snapshot.answer}</p>
         </section>
       ) : null}
-      {snapshot.question ? <QuestionCard key={snapshot.question.id} sessionId={sessionId} question={snapshot.question} /> : null}
+      {snapshot.question ? (
+        <QuestionCard key={snapshot.question.id} sessionId={sessionId} question={snapshot.question} asHost={snapshot.role === "host"} />
+      ) : null}
       <LiveView live={snapshot.live} diagnosis={diagnosis} sensorLabels={SCENARIO_SENSOR_LABELS} />
     </article>
   );

@@ -8,7 +8,7 @@ import type { SessionQuestion } from "./session-types";
  * The instructor's question, answered with one click; a click on another choice changes the
  * answer while the question is open. The choice shows at once and is confirmed by the server.
  */
-export function QuestionCard({ sessionId, question }: { sessionId: string; question: SessionQuestion }) {
+export function QuestionCard({ sessionId, question, asHost = false }: { sessionId: string; question: SessionQuestion; asHost?: boolean }) {
   // Keyed by question, so a new question starts with no local choice.
   const [sent, setSent] = useState<{ questionId: string; choice: number } | null>(null);
   const [pending, setPending] = useState<number | null>(null);
@@ -55,7 +55,7 @@ export function QuestionCard({ sessionId, question }: { sessionId: string; quest
                   : "border-chart-rule bg-chart-sheet hover:border-lox-400 disabled:opacity-70"
               }`}
               onClick={() => answer(index)}
-              disabled={!question.open || pending !== null}
+              disabled={asHost || !question.open || pending !== null}
               aria-pressed={chosen}
               data-choice={index}
             >
@@ -69,15 +69,17 @@ export function QuestionCard({ sessionId, question }: { sessionId: string; quest
         })}
       </div>
       <p className="mt-2 text-xs text-chart-muted" role="status" aria-live="polite" data-testid="answer-status">
-        {pending !== null
-          ? "Sending your answer…"
-          : mine !== null
-            ? question.open
-              ? `You answered ${String.fromCharCode(65 + mine)}. You may change it until the instructor closes the question.`
-              : `You answered ${String.fromCharCode(65 + mine)}.`
-            : question.open
-              ? "Pick one answer."
-              : "The question closed before you answered."}
+        {asHost
+          ? "The class answers here; the tally is on your console."
+          : pending !== null
+            ? "Sending your answer…"
+            : mine !== null
+              ? question.open
+                ? `You answered ${String.fromCharCode(65 + mine)}. You may change it until the instructor closes the question.`
+                : `You answered ${String.fromCharCode(65 + mine)}.`
+              : question.open
+                ? "Pick one answer."
+                : "The question closed before you answered."}
       </p>
       {problem ? (
         <p role="alert" className="mt-1 text-xs font-medium text-halt dark:text-red-300">

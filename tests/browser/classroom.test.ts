@@ -292,6 +292,7 @@ test("the scenario builder checks each field, previews at once, saves, duplicate
   const { context, page } = await newPage({ width: 1440 });
   await signIn(page, people.instructor.email, `/w/${slug}/classroom`);
   await page.locator('[data-testid="scenario-card"]').first().waitFor();
+  await page.getByTestId("session-row").first().waitFor();
   await page.screenshot({ path: artefactPath("classroom-list.png"), fullPage: true });
   await page.getByRole("link", { name: "Compose a scenario" }).click();
   await page.waitForURL(`${baseUrl}/w/${slug}/classroom/scenarios/new`);

@@ -1,6 +1,5 @@
 import "server-only";
 import { Op, UniqueConstraintError } from "sequelize";
-import type { LiveSnapshot } from "@/geometry/live-snapshot";
 import { recordAudit } from "@/lib/audit";
 import { newJoinCode } from "@/lib/classroom/join-code";
 import { notifySession } from "@/lib/classroom/notify-hub";
@@ -17,84 +16,25 @@ import { db } from "@/lib/db";
 import { UserFacingError } from "@/lib/errors";
 import type { ControlInput } from "@/lib/validations/classroom";
 import type { ClassSession, User } from "@/models";
-import type { ClassSessionStatus, SessionScenario } from "@/models/class-session";
+import type { ClassSessionSummary, LoadedSession, SessionStatus } from "@/lib/classroom/session-types";
+import type { SessionScenario } from "@/models/class-session";
+
+/**
+ * Class sessions: started from a scenario (copied, so later edits do not reach a running
+ * session), controlled by the host under the playback rule, ended by the host or by expiry.
+ * Every change is written first and then announced through PostgreSQL (notifySession).
+ */
 
 /** Join codes stop working this long after the host's last action. */
 export const JOIN_CODE_LIFETIME_MS = 4 * 60 * 60 * 1000;
 
-export type SessionStatus = ClassSessionStatus;
-
-export interface ClassSessionSummary {
-  id: string;
-  scenarioName: string;
-  status: SessionStatus;
-  /** Only for those who may host, and only while the session runs. */
-  joinCode: string | null;
-  hostName: string | null;
-  createdAt: string;
-  runId: string | null;
-}
-
-export interface SessionQuestionView {
-  id: string;
-  prompt: string;
-  choices: string[];
-  open: boolean;
-  /** The viewer's own answer (an index into choices), if any. */
-  myChoice: number | null;
-}
-
-/** What every viewer of a session is sent (per viewer: role, joinCode, answer, myChoice, runPath differ). */
-export interface SessionSnapshot {
-  sessionId: string;
-  status: SessionStatus;
-  scenarioName: string;
-  scenarioDescription: string;
-  stateVersion: number;
-  playing: boolean;
-  speed: number;
-  frozen: boolean;
-  answerRevealed: boolean;
-  /** The fault in words: for participants only once revealed; the host always has it. */
-  answer: string | null;
-  joinCode: string | null;
-  allowGuests: boolean;
-  participants: number;
-  role: "host" | "participant";
-  question: SessionQuestionView | null;
-  live: LiveSnapshot;
-  runId: string | null;
-  /** /w/{slug}/runs/{runId} for a member who may open the saved run; null otherwise. */
-  runPath: string | null;
-  /** The scenario runs motors (current coupling): show the safety cautions. */
-  powersMotors: boolean;
-}
-
-/** A session as every process reads it from the database, with what the playback rule needs. */
-export interface LoadedSession {
-  id: string;
-  workspaceId: string;
-  workspaceSlug: string;
-  hostId: string | null;
-  status: SessionStatus;
-  stateVersion: number;
-  questionsVersion: number;
-  answersVersion: number;
-  playback: PlaybackState;
-  answerRevealed: boolean;
-  joinCode: string;
-  allowGuests: boolean;
-  runId: string | null;
-  scenario: SessionScenario;
-  expiresAtMs: number;
-  endedAtMs: number | null;
-  specKey: string;
-  totalSamples: number;
-  sampleRateHz: number;
-  participants: number;
-  /** The latest question asked, open or closed. */
-  question: { id: string; prompt: string; choices: string[]; open: boolean } | null;
-}
+export type {
+  ClassSessionSummary,
+  LoadedSession,
+  SessionQuestionView,
+  SessionSnapshot,
+  SessionStatus,
+} from "@/lib/classroom/session-types";
 
 function playbackOf(row: ClassSession): PlaybackState {
   return {

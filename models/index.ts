@@ -23,30 +23,30 @@ import { Workspace } from "./workspace";
  * Define every model on one Sequelize instance and wire their associations. Each model names
  * itself (modelName) so the production build's minified class names never reach SQL aliases.
  */
-export function initModels(sequelize: Sequelize) {
-  for (const model of [
-    User,
-    Workspace,
-    Membership,
-    Invitation,
-    PasswordResetToken,
-    AuditEvent,
-    SignInAttempt,
-    Site,
-    Vehicle,
-    Sensor,
-    Run,
-    RunSensor,
-    RunVersion,
-    ApiToken,
-    Scenario,
-    ClassSession,
-    ClassParticipant,
-    ClassQuestion,
-    ClassAnswer,
-  ]) {
-    model.initModel(sequelize);
-  }
+const MODELS = {
+  User,
+  Workspace,
+  Membership,
+  Invitation,
+  PasswordResetToken,
+  AuditEvent,
+  SignInAttempt,
+  Site,
+  Vehicle,
+  Sensor,
+  Run,
+  RunSensor,
+  RunVersion,
+  ApiToken,
+  Scenario,
+  ClassSession,
+  ClassParticipant,
+  ClassQuestion,
+  ClassAnswer,
+};
+
+export function initModels(sequelize: Sequelize): typeof MODELS {
+  for (const model of Object.values(MODELS)) model.initModel(sequelize);
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
   Membership.belongsTo(Workspace, { foreignKey: "workspaceId", as: "workspace" });
   User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
@@ -68,27 +68,7 @@ export function initModels(sequelize: Sequelize) {
   ClassParticipant.belongsTo(User, { foreignKey: "userId", as: "user" });
   ClassQuestion.hasMany(ClassAnswer, { foreignKey: "questionId", as: "answers" });
   ClassAnswer.belongsTo(ClassParticipant, { foreignKey: "participantId", as: "participant" });
-  return {
-    User,
-    Workspace,
-    Membership,
-    Invitation,
-    PasswordResetToken,
-    AuditEvent,
-    SignInAttempt,
-    Site,
-    Vehicle,
-    Sensor,
-    Run,
-    RunSensor,
-    RunVersion,
-    ApiToken,
-    Scenario,
-    ClassSession,
-    ClassParticipant,
-    ClassQuestion,
-    ClassAnswer,
-  };
+  return MODELS;
 }
 
 export {

@@ -36,7 +36,7 @@ test("sign up, create a workspace, invite a technician who accepts and sees what
   await fill(page, "E-mail", owner.email);
   await fill(page, "Password", "short");
   await page.getByRole("button", { name: "Create account" }).click();
-  await expect.poll(() => page.locator("#field-password-error").textContent()).toMatch(/at least 10 characters/);
+  await expect.poll(() => page.locator("#field-password-error").textContent(), { timeout: 15_000 }).toMatch(/at least 10 characters/);
   await fill(page, "Password", owner.password);
   await page.getByRole("button", { name: "Create account" }).click();
   await page.waitForURL(`${baseUrl}/workspaces/new`);
@@ -47,7 +47,7 @@ test("sign up, create a workspace, invite a technician who accepts and sees what
   await page.getByLabel("Kind").selectOption("repair-shop");
   await page.getByRole("button", { name: "Create workspace" }).click();
   await page.waitForURL(`${baseUrl}/w/${slug}`);
-  await expect.poll(() => page.getByTestId("my-role").textContent()).toContain("Owner");
+  await expect.poll(() => page.getByTestId("my-role").textContent(), { timeout: 15_000 }).toContain("Owner");
   for (const tab of ["Overview", "People", "Logbook", "Settings"]) {
     expect(await page.getByRole("navigation", { name: "Workspace" }).getByRole("link", { name: tab }).count()).toBe(1);
   }
@@ -59,7 +59,9 @@ test("sign up, create a workspace, invite a technician who accepts and sees what
   await invite.getByLabel("E-mail").fill(tech.email);
   await invite.getByLabel("Role").selectOption("technician");
   await invite.getByRole("button", { name: "Send invitation" }).click();
-  await expect.poll(() => page.getByRole("status").first().textContent()).toContain(`Invitation sent to ${tech.email}`);
+  await expect
+    .poll(() => page.getByRole("status").first().textContent(), { timeout: 15_000 })
+    .toContain(`Invitation sent to ${tech.email}`);
   await page.screenshot({ path: artefactPath("members-owner.png"), fullPage: true });
 
   // The technician opens the captured mail and follows the link.
@@ -67,7 +69,7 @@ test("sign up, create a workspace, invite a technician who accepts and sees what
   const techPage = await techContext.newPage();
   await techPage.goto(`${baseUrl}/dev/mail`);
   const mail = techPage.getByTestId("captured-mail").filter({ hasText: tech.email }).first();
-  await expect.poll(() => mail.textContent()).toContain("Join Harbour Light Repairs");
+  await expect.poll(() => mail.textContent(), { timeout: 15_000 }).toContain("Join Harbour Light Repairs");
   await mail.getByRole("link", { name: /\/invitations\// }).click();
   await techPage.waitForURL(/\/invitations\//);
   expect(await techPage.getByRole("heading", { level: 1 }).textContent()).toContain("Join Harbour Light Repairs");
@@ -85,15 +87,18 @@ test("sign up, create a workspace, invite a technician who accepts and sees what
   await fill(techPage, "E-mail", tech.email);
   await fill(techPage, "Password", "not-my-password-1");
   await techPage.getByRole("button", { name: "Sign in" }).click();
-  await expect.poll(() => techPage.getByRole("alert").first().textContent()).toContain("do not match");
+  await expect.poll(() => techPage.getByRole("alert").first().textContent(), { timeout: 15_000 }).toContain("do not match");
   await fill(techPage, "Password", tech.password);
   await techPage.getByRole("button", { name: "Sign in" }).click();
   await techPage.waitForURL(`${baseUrl}/workspaces`);
-  await techPage.getByRole("link", { name: /Harbour Light Repairs/ }).first().click();
+  await techPage
+    .getByRole("link", { name: /Harbour Light Repairs/ })
+    .first()
+    .click();
   await techPage.waitForURL(`${baseUrl}/w/${slug}`);
 
   // What a technician sees: people and the logbook, but no settings and no invitation form.
-  await expect.poll(() => techPage.getByTestId("my-role").textContent()).toContain("Technician");
+  await expect.poll(() => techPage.getByTestId("my-role").textContent(), { timeout: 15_000 }).toContain("Technician");
   const nav = techPage.getByRole("navigation", { name: "Workspace" });
   expect(await nav.getByRole("link", { name: "People" }).count()).toBe(1);
   expect(await nav.getByRole("link", { name: "Logbook" }).count()).toBe(1);
@@ -114,7 +119,7 @@ test("sign up, create a workspace, invite a technician who accepts and sees what
 
   // The owner now sees the technician in the list and the acceptance in the logbook.
   await page.goto(`${baseUrl}/w/${slug}/activity`);
-  await expect.poll(() => page.locator("table").textContent()).toContain(`${tech.name} joined as technician`);
+  await expect.poll(() => page.locator("table").textContent(), { timeout: 15_000 }).toContain(`${tech.name} joined as technician`);
 
   await ownerContext.close();
   await techContext.close();

@@ -41,17 +41,47 @@ beforeAll(async () => {
   Object.assign(people, { owner, technician, builder });
 
   // A site of our choosing; the World Magnetic Model gives its field.
-  const site = await createSite(workspace.id, owner.id, { name: "Lochside field", latitudeDeg: 56.1, longitudeDeg: -3.9, altitudeM: 40, notes: "" });
-  const vehicle = await createVehicle(workspace.id, owner.id, { name: "Gannet 3", kind: "multirotor", airframe: "Quad", serialTag: "G3", customer: "", notes: "" });
-  const board = await createSensor(workspace.id, owner.id, vehicle.id, { kind: "magnetometer", label: "board", placement: "internal", mountingRotation: "none", units: "uT", columnHints: [] });
-  const mast = await createSensor(workspace.id, owner.id, vehicle.id, { kind: "magnetometer", label: "mast module", placement: "external", mountingRotation: "none", units: "uT", columnHints: [] });
+  const site = await createSite(workspace.id, owner.id, {
+    name: "Lochside field",
+    latitudeDeg: 56.1,
+    longitudeDeg: -3.9,
+    altitudeM: 40,
+    notes: "",
+  });
+  const vehicle = await createVehicle(workspace.id, owner.id, {
+    name: "Gannet 3",
+    kind: "multirotor",
+    airframe: "Quad",
+    serialTag: "G3",
+    customer: "",
+    notes: "",
+  });
+  const board = await createSensor(workspace.id, owner.id, vehicle.id, {
+    kind: "magnetometer",
+    label: "board",
+    placement: "internal",
+    mountingRotation: "none",
+    units: "uT",
+    columnHints: [],
+  });
+  const mast = await createSensor(workspace.id, owner.id, vehicle.id, {
+    kind: "magnetometer",
+    label: "mast module",
+    placement: "external",
+    mountingRotation: "none",
+    units: "uT",
+    columnHints: [],
+  });
   const field = magneticReference(site, new Date("2026-11-02T12:00:00Z")).fieldNedMicrotesla;
   const csv = tableToCsv(
     simulateCapture({
       seed: 31,
       siteFieldNed: field,
       holds: { faces: ["+z", "-z", "+x", "-x", "+y", "-y"] },
-      magnetometers: [{ hardIronOffset: [9, -5, 14], softIron: "mild" }, { mountingRotation: mountingRotationByName("yaw 90")!.matrix, declaredRotation: mountingRotationByName("none")!.matrix }],
+      magnetometers: [
+        { hardIronOffset: [9, -5, 14], softIron: "mild" },
+        { mountingRotation: mountingRotationByName("yaw 90")!.matrix, declaredRotation: mountingRotationByName("none")!.matrix },
+      ],
     }).table,
   );
   const { run } = await createRun(workspace.id, owner.id, {
@@ -88,7 +118,11 @@ afterAll(async () => {
 });
 
 async function signIn(email: string, options: { colorScheme?: "light" | "dark"; width?: number } = {}): Promise<Page> {
-  const context = await browser.newContext({ colorScheme: options.colorScheme ?? "light", viewport: { width: options.width ?? 1280, height: 900 }, acceptDownloads: true });
+  const context = await browser.newContext({
+    colorScheme: options.colorScheme ?? "light",
+    viewport: { width: options.width ?? 1280, height: 900 },
+    acceptDownloads: true,
+  });
   const page = await context.newPage();
   await page.goto(`${baseUrl}/sign-in?next=${encodeURIComponent(runPath)}`);
   await page.getByLabel("E-mail").fill(email);
@@ -117,7 +151,7 @@ async function canvasState(page: Page) {
 
 test("a technician reads the run, turns the view, exports and signs off", async () => {
   const page = await signIn(people.technician.email);
-  await expect.poll(() => page.getByTestId("run-page").count()).toBe(1);
+  await expect.poll(() => page.getByTestId("run-page").count(), { timeout: 15_000 }).toBe(1);
 
   // The 3D view: a WebGL context with a real picture in it.
   const canvas = page.getByTestId("sphere-canvas");
@@ -128,15 +162,15 @@ test("a technician reads the run, turns the view, exports and signs off", async 
   // Corrected is shown first; switching to the cloud as logged changes the picture.
   expect(await page.getByLabel("Corrected", { exact: true }).isChecked()).toBe(true);
   await page.getByText("As logged", { exact: true }).click();
-  await expect.poll(() => page.getByLabel("As logged", { exact: true }).isChecked()).toBe(true);
+  await expect.poll(() => page.getByLabel("As logged", { exact: true }).isChecked(), { timeout: 15_000 }).toBe(true);
   await page.waitForTimeout(800);
   expect(Buffer.compare(before, await canvas.screenshot())).not.toBe(0);
-  await expect.poll(async () => (await canvasState(page)).colours).toBeGreaterThan(8);
+  await expect.poll(async () => (await canvasState(page)).colours, { timeout: 15_000 }).toBeGreaterThan(8);
   expect(await page.getByTestId("samples-shown").textContent()).toMatch(/Showing [\d,]+ of [\d,]+ samples/);
 
   // The verdict, the failing mounting check (the mast module is turned 90° against its declaration), the parameters.
   const checks = page.getByTestId("check-list");
-  await expect.poll(() => checks.textContent()).toMatch(/yaw 90/);
+  await expect.poll(() => checks.textContent(), { timeout: 15_000 }).toMatch(/yaw 90/);
   const parameters = page.getByTestId("parameters-table");
   expect(await parameters.textContent()).toMatch(/offset/i);
 
@@ -149,7 +183,10 @@ test("a technician reads the run, turns the view, exports and signs off", async 
       expect(doc.format).toBe("loxodrome-correction");
       expect(doc.magnetometers[0].offset[0]).toBeCloseTo(9, 0);
     } else if (format === "correction-csv") {
-      const rows = text.trim().split("\n").map((r) => r.split(","));
+      const rows = text
+        .trim()
+        .split("\n")
+        .map((r) => r.split(","));
       expect(rows[0]).toEqual(["slot", "label", "quantity", "row", "column", "value", "unit"]);
       expect(Number(rows.find((r) => r[0] === "mag0" && r[2] === "offset" && r[3] === "x")![5])).toBeCloseTo(9, 0);
     } else if (format === "c-header") {
@@ -164,9 +201,9 @@ test("a technician reads the run, turns the view, exports and signs off", async 
   await page.getByLabel("Comment for the record").fill("Mast module to be re-declared as yaw 90 before flight.");
   await page.getByRole("button", { name: "Sign off this version" }).click();
   // The page re-renders with the stamp in place of the form, and keeps it after a reload.
-  await expect.poll(() => page.getByTestId("signed-off").textContent()).toMatch(/re-declared as yaw 90/);
+  await expect.poll(() => page.getByTestId("signed-off").textContent(), { timeout: 15_000 }).toMatch(/re-declared as yaw 90/);
   await page.reload();
-  await expect.poll(() => page.getByTestId("signed-off").textContent()).toMatch(/Signed off by/);
+  await expect.poll(() => page.getByTestId("signed-off").textContent(), { timeout: 15_000 }).toMatch(/Signed off by/);
   expect(await page.getByRole("button", { name: "Sign off this version" }).count()).toBe(0);
   const events = await db().models.AuditEvent.findAll({ where: { action: "run.signed-off", targetId: runId } });
   expect(events).toHaveLength(1);
@@ -195,10 +232,18 @@ test.each([
   if (scheme === "light" && width === 1280) {
     await page.addScriptTag({ path: createRequire(import.meta.url).resolve("axe-core/axe.min.js") });
     const result = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run: (context: Document, options: object) => Promise<{ violations: { id: string; impact: string | null; nodes: unknown[] }[] }> } }).axe;
+      const axe = (
+        window as unknown as {
+          axe: {
+            run: (context: Document, options: object) => Promise<{ violations: { id: string; impact: string | null; nodes: unknown[] }[] }>;
+          };
+        }
+      ).axe;
       return axe.run(document, { resultTypes: ["violations"] });
     });
-    const serious = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id} (${v.nodes.length})`);
+    const serious = result.violations
+      .filter((v) => v.impact === "serious" || v.impact === "critical")
+      .map((v) => `${v.id} (${v.nodes.length})`);
     expect(serious).toEqual([]);
   }
   await page.context().close();

@@ -19,7 +19,7 @@ import { magneticReference, type MagneticReference, type Site } from "./magnetic
 import { analyseMagnetometers, type MagnetometerAnalysis } from "./magnetometer-analysis";
 import type { MagModelChoice } from "./magnetometer-types";
 import { compareAccelerometers, compareGyroscopes, type AccelerometerAgreement, type GyroscopeAgreement } from "./sensor-agreement";
-import { findStillPeriods, type StillPeriod } from "./still-periods";
+import { findStillPeriods, STILL_PERIOD_DEFAULTS, type StillPeriod } from "./still-periods";
 import { resolveThresholds, type ThresholdOverrides } from "./thresholds";
 import type { CaptureField, Check, ColumnTable, Mat3, Vec3, Vec3Series } from "./types";
 import type { UnitSpec } from "./units";
@@ -155,6 +155,24 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
     const series = seriesOf(capture, sensor);
     const poses = groupPoses(time, series, stillPeriods);
     const faces = summariseFaces(poses);
+    // Fewer than two faces still: look again with the limits loosened fourfold, to tell a
+    // compass tumble (no holds at all) from six holds spoiled by wobble.
+    const unsteadyFaces =
+      faces.missingFaces.length > 4
+        ? 6 -
+          summariseFaces(
+            groupPoses(
+              time,
+              series,
+              findStillPeriods(time, series, {
+                gyro: gyro0,
+                accelStdThresholdMps2: 4 * STILL_PERIOD_DEFAULTS.accelStdThresholdMps2,
+                gyroRateThresholdRadPerS: 4 * STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS,
+                maxDriftDeg: 4 * STILL_PERIOD_DEFAULTS.maxDriftDeg,
+              }),
+            ),
+          ).missingFaces.length
+        : 0;
     const calibration = fitAccelerometer(poses, { gravityMps2, model: options.accelerometerModel });
     checks.push(
       ...accelerometerChecks(
@@ -165,6 +183,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
           result: calibration,
           gravity: { valueMps2: gravityMps2, source: gravitySource },
           unitsScaledToGravity: units[sensor].how === "guessed" && units[sensor].spec.unit === "counts",
+          unsteadyFaces,
         },
         thresholds,
       ),

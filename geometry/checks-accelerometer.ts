@@ -4,6 +4,7 @@
 import type { AccelerometerResult } from "./accelerometer-fit";
 import { FACE_WORDS, type AccelerometerPose, type FaceSummary } from "./accelerometer-poses";
 import { fmt, gradedCheck, skippedCheck } from "./checks-common";
+import { STILL_PERIOD_DEFAULTS } from "./still-periods";
 import type { GyroBias, GyroBiasRefusal } from "./gyro-bias";
 import type { BodyFace } from "./magnetometer-types";
 import type { ThresholdTable } from "./thresholds";
@@ -19,6 +20,11 @@ export interface AccelerometerCheckInput {
   gravity: { valueMps2: number; source: string };
   /** True when the units were inferred by scaling readings to standard gravity (the gravity check is then circular). */
   unitsScaledToGravity: boolean;
+  /**
+   * Faces found when the still limits are loosened fourfold: attitudes that were held, but too
+   * unsteadily to count as still. Only looked for when fewer than two faces were held still.
+   */
+  unsteadyFaces?: number;
 }
 
 function faceName(face: BodyFace): string {
@@ -33,6 +39,25 @@ function faceName(face: BodyFace): string {
 export function accelerometerChecks(input: AccelerometerCheckInput, thresholds: ThresholdTable): Check[] {
   const { sensor, result } = input;
   const facesHeld = 6 - input.faces.missingFaces.length;
+  if (facesHeld < 2 && (input.unsteadyFaces ?? 0) >= 3) {
+    // Several attitudes were held, so this was meant as an accelerometer calibration, but the
+    // holds moved too much to measure: that spoils it rather than making it "not a calibration".
+    return [
+      {
+        id: "accel.faces",
+        title: "Six faces held",
+        status: "fail",
+        sensor,
+        measured: `${input.unsteadyFaces} held, none still`,
+        threshold: `each face held still for at least ${STILL_PERIOD_DEFAULTS.minDurationS} s`,
+        unit: null,
+        explanation: `The capture holds ${input.unsteadyFaces} attitudes, but every hold moved too much to count as still (the limits are a reading steady to ${STILL_PERIOD_DEFAULTS.accelStdThresholdMps2} m/s² and turning slower than ${STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS} rad/s for ${STILL_PERIOD_DEFAULTS.minDurationS} s), so no offset or scale can be measured from it.`,
+        remedy:
+          "Rest the vehicle on something firm, or brace your hands, and hold each of the six attitudes without moving for a few seconds.",
+        source: "common practice",
+      },
+    ];
+  }
   if (facesHeld < 2) {
     return [
       skippedCheck(

@@ -6,6 +6,7 @@ import { SensorForm } from "@/components/fleet/sensor-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { SensorSummary } from "@/lib/data/sensors";
 import { SENSOR_KIND_LABELS } from "@/lib/fleet-terms";
+import { TableHead } from "@/components/ui/table-head";
 
 /** A vehicle's sensors with their declared mounting; add and edit for those who may. */
 export function SensorList({
@@ -61,33 +62,7 @@ export function SensorList({
       ) : (
         <div className="mt-4 overflow-x-auto">
           <table className="w-full text-left text-sm" aria-label="Sensors">
-            <thead className="border-y border-chart-rule bg-chart-paper text-xs uppercase tracking-wide text-chart-muted">
-              <tr>
-                <th scope="col" className="px-6 py-2 font-medium">
-                  Label
-                </th>
-                <th scope="col" className="px-4 py-2 font-medium">
-                  Sensor
-                </th>
-                <th scope="col" className="px-4 py-2 font-medium">
-                  Placement
-                </th>
-                <th scope="col" className="px-4 py-2 font-medium">
-                  Mounting rotation
-                </th>
-                <th scope="col" className="px-4 py-2 font-medium">
-                  Units
-                </th>
-                <th scope="col" className="px-4 py-2 font-medium">
-                  Usual columns
-                </th>
-                {canEdit ? (
-                  <th scope="col" className="px-6 py-2 font-medium">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                ) : null}
-              </tr>
-            </thead>
+            <TableHead columns={["Label", "Sensor", "Placement", "Mounting rotation", "Units", "Usual columns"]} actions={canEdit} />
             <tbody className="divide-y divide-chart-rule">
               {sensors.map((s) => (
                 <tr key={s.id} data-testid="sensor-row">

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { SiteForm } from "@/components/sites/site-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { SiteSummary } from "@/lib/data/sites";
+import { TableHead } from "@/components/ui/table-head";
 
 const degrees = (value: number) => value.toFixed(5);
 
@@ -52,30 +53,16 @@ export function SiteList({ slug, sites, canEdit }: { slug: string; sites: SiteSu
       ) : (
         <div className="mt-4 overflow-x-auto">
           <table className="w-full text-left text-sm" aria-label="Sites">
-            <thead className="border-y border-chart-rule bg-chart-paper text-xs uppercase tracking-wide text-chart-muted">
-              <tr>
-                <th scope="col" className="px-6 py-2 font-medium">
-                  Name
-                </th>
-                <th scope="col" className="px-4 py-2 text-right font-medium">
-                  Latitude °
-                </th>
-                <th scope="col" className="px-4 py-2 text-right font-medium">
-                  Longitude °
-                </th>
-                <th scope="col" className="px-4 py-2 text-right font-medium">
-                  Altitude m
-                </th>
-                <th scope="col" className="px-4 py-2 font-medium">
-                  Notes
-                </th>
-                {canEdit ? (
-                  <th scope="col" className="px-6 py-2 font-medium">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                ) : null}
-              </tr>
-            </thead>
+            <TableHead
+              columns={[
+                "Name",
+                { label: "Latitude °", numeric: true },
+                { label: "Longitude °", numeric: true },
+                { label: "Altitude m", numeric: true },
+                "Notes",
+              ]}
+              actions={canEdit}
+            />
             <tbody className="divide-y divide-chart-rule">
               {sites.map((site) => (
                 <tr key={site.id} data-testid="site-row">

@@ -6,6 +6,7 @@ import { listMembers } from "@/lib/data/members";
 import { requireWorkspacePage } from "@/lib/guard";
 import { assignableRoles } from "@/lib/permissions";
 import { ROLE_LABELS } from "@/lib/roles";
+import { TableHead } from "@/components/ui/table-head";
 
 export const metadata: Metadata = { title: "People" };
 
@@ -24,17 +25,7 @@ export default async function MembersPage({ params }: { params: Promise<{ slug: 
           People in {access.workspace.name}
         </h2>
         <table className="mt-4 w-full text-left text-sm">
-          <thead className="border-y border-chart-rule bg-chart-paper text-xs uppercase tracking-wide text-chart-muted">
-            <tr>
-              <th className="px-6 py-2 font-medium">Name</th>
-              <th className="px-6 py-2 font-medium">Role</th>
-              {mayRemove ? (
-                <th className="px-6 py-2 font-medium">
-                  <span className="sr-only">Actions</span>
-                </th>
-              ) : null}
-            </tr>
-          </thead>
+          <TableHead columns={["Name", "Role"]} actions={mayRemove} padding="px-6" />
           <tbody className="divide-y divide-chart-rule">
             {members.map((m) => (
               <tr key={m.membershipId} data-testid="member-row">

@@ -12,10 +12,13 @@ export function TableHead({
   columns,
   actions = false,
   inset = "px-6",
+  padding = "px-4",
 }: {
   columns: (string | HeadColumn)[];
   actions?: boolean;
+  /** Horizontal padding of the first and the actions column, and of the others. */
   inset?: string;
+  padding?: string;
 }) {
   return (
     <thead className="border-y border-chart-rule bg-chart-paper text-xs uppercase tracking-wide text-chart-muted">

@@ -1,7 +1,7 @@
 "use client";
 
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { AXIS_LINE, GRID, POSE_FILL, SERIES_COLOURS, TICK, TOOLTIP_STYLE, axisLabel } from "./chart-style";
+import { AXIS_LINE, GRID, POSE_FILL, SERIES_COLOURS, TICK, TOOLTIP_STYLE, axisLabel, timeAxisProps } from "./chart-style";
 import { ChartFigure } from "./chart-figure";
 import { formatNumber, formatQuantity } from "./format";
 import { faceWords } from "./parameter-text";
@@ -40,17 +40,7 @@ export function AccelerationChart({ data, gravityMps2 }: { data: PlotData; gravi
         title="Accelerometer magnitude over time"
       >
         <CartesianGrid {...GRID} />
-        <XAxis
-          dataKey="timeS"
-          type="number"
-          domain={timeScale.domain}
-          ticks={timeScale.ticks}
-          tick={TICK}
-          axisLine={AXIS_LINE}
-          tickLine={AXIS_LINE}
-          tickFormatter={(v: number) => formatNumber(v, timeScale.decimals)}
-          label={axisLabel("Time (s)", "x")}
-        />
+        <XAxis {...timeAxisProps(timeScale)} />
         <YAxis
           domain={yScale.domain}
           ticks={yScale.ticks}

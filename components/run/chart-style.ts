@@ -5,6 +5,7 @@
  * theme's CSS variables.
  */
 import type { SymbolType } from "recharts";
+import { formatNumber } from "./format";
 
 export const SERIES_COLOURS = ["#4e9a95", "#c27c2c", "#7d6fc0", "#4b7fb0"] as const;
 export const SERIES_DASHES = [undefined, "6 3", "2 3", "8 3 2 3"] as const;
@@ -39,4 +40,19 @@ export function axisLabel(value: string, axis: "x" | "y") {
   return axis === "x"
     ? { value, position: "insideBottom" as const, offset: -4, fill: "currentColor", fontSize: 12 }
     : { value, angle: -90, position: "insideLeft" as const, style: { textAnchor: "middle" as const }, fill: "currentColor", fontSize: 12 };
+}
+
+/** The time axis every time plot shares: seconds from the start of the capture. */
+export function timeAxisProps(scale: { domain: [number, number]; ticks: number[]; decimals: number }) {
+  return {
+    dataKey: "timeS",
+    type: "number" as const,
+    domain: scale.domain,
+    ticks: scale.ticks,
+    tick: TICK,
+    axisLine: AXIS_LINE,
+    tickLine: AXIS_LINE,
+    tickFormatter: (v: number) => formatNumber(v, scale.decimals),
+    label: axisLabel("Time (s)", "x"),
+  };
 }

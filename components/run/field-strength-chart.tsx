@@ -1,7 +1,7 @@
 "use client";
 
 import { CartesianGrid, Legend, Line, LineChart, ReferenceArea, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { AXIS_LINE, BAND_FILL, GRID, SERIES_COLOURS, SERIES_DASHES, TICK, TOOLTIP_STYLE, axisLabel } from "./chart-style";
+import { AXIS_LINE, BAND_FILL, GRID, SERIES_COLOURS, SERIES_DASHES, TICK, TOOLTIP_STYLE, axisLabel, timeAxisProps } from "./chart-style";
 import { ChartFigure } from "./chart-figure";
 import { formatNumber, formatQuantity } from "./format";
 import { fractionInBand, niceScale, timeAxis, timeRows, type PlotData } from "./plot-data";
@@ -59,17 +59,7 @@ export function FieldStrengthChart({ data, sensorLabels = {} }: { data: PlotData
         title="Field strength over time"
       >
         <CartesianGrid {...GRID} />
-        <XAxis
-          dataKey="timeS"
-          type="number"
-          domain={timeScale.domain}
-          ticks={timeScale.ticks}
-          tick={TICK}
-          axisLine={AXIS_LINE}
-          tickLine={AXIS_LINE}
-          tickFormatter={(v: number) => formatNumber(v, timeScale.decimals)}
-          label={axisLabel("Time (s)", "x")}
-        />
+        <XAxis {...timeAxisProps(timeScale)} />
         <YAxis
           domain={yScale.domain}
           ticks={yScale.ticks}

@@ -78,8 +78,8 @@ async function runStep(step: Step, table: ColumnTable): Promise<void> {
     const c = table.columns;
     findStillPeriods(
       c.time,
-      { x: c["accel0.x"], y: c["accel0.y"], z: c["accel0.z"] },
-      { gyro: { x: c["gyro0.x"], y: c["gyro0.y"], z: c["gyro0.z"] } },
+      { x: c["accel_a.x"], y: c["accel_a.y"], z: c["accel_a.z"] },
+      { gyro: { x: c["gyro_a.x"], y: c["gyro_a.y"], z: c["gyro_a.z"] } },
     );
   } else if (step === "analyse" || step === "analyse-no-bootstrap") {
     analyseCapture(table, { units: { magnetic: { kind: "magnetic", unit: "uT" } }, bootstrap: step === "analyse" });

@@ -38,7 +38,7 @@ export interface AnalyseCaptureOptions {
   /** Accelerometer model; default "auto". */
   accelerometerModel?: AccelModel | "auto";
   /**
-   * Declared mounting rotation of each compass (by sensor, e.g. "mag1"): the rotation the
+   * Declared mounting rotation of each compass (by sensor, e.g. "compass_b"): the rotation the
    * flight controller is told, v_body = R · v_logged, as a matrix or a standard name
    * ("yaw 90"). Default none: the logged values are taken to be in the body frame already.
    */
@@ -146,9 +146,9 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   const checks: Check[] = [];
 
   // Still periods, from the first accelerometer (and gyroscope).
-  const accel0 = sensors.accel[0] ? seriesOf(capture, sensors.accel[0]) : null;
-  const gyro0 = sensors.gyro[0] ? seriesOf(capture, sensors.gyro[0]) : undefined;
-  const stillPeriods = accel0 ? findStillPeriods(time, accel0, { gyro: gyro0 }) : [];
+  const accel_a = sensors.accel[0] ? seriesOf(capture, sensors.accel[0]) : null;
+  const gyro_a = sensors.gyro[0] ? seriesOf(capture, sensors.gyro[0]) : undefined;
+  const stillPeriods = accel_a ? findStillPeriods(time, accel_a, { gyro: gyro_a }) : [];
 
   // Accelerometers.
   const accelerometers: AccelerometerAnalysis[] = sensors.accel.map((sensor) => {
@@ -165,7 +165,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
               time,
               series,
               findStillPeriods(time, series, {
-                gyro: gyro0,
+                gyro: gyro_a,
                 accelStdThresholdMps2: 4 * STILL_PERIOD_DEFAULTS.accelStdThresholdMps2,
                 gyroRateThresholdRadPerS: 4 * STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS,
                 maxDriftDeg: 4 * STILL_PERIOD_DEFAULTS.maxDriftDeg,
@@ -221,7 +221,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
     units,
     reference: magnetic,
     stillPeriods,
-    accel: accel0 ? { series: accel0, correction: accelCorrection } : null,
+    accel: accel_a ? { series: accel_a, correction: accelCorrection } : null,
     mountingRotations: options.mountingRotations ?? {},
     model: options.model ?? "auto",
     seed: options.seed ?? 1,
@@ -237,7 +237,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
           unitsPhysical: units[mag.sensor].physical,
           reference: magnetic,
           dip: mag.dip,
-          dipUnavailableReason: accel0 ? undefined : "There is no accelerometer in this capture to tell which way is down.",
+          dipUnavailableReason: accel_a ? undefined : "There is no accelerometer in this capture to tell which way is down.",
           mounting: mag.mountingComparison,
           coupling: mag.currentCoupling,
         },
@@ -251,7 +251,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   for (const other of accelerometers.slice(1)) {
     const agreement = compareAccelerometers(
       [accelerometers[0].sensor, other.sensor],
-      accel0!,
+      accel_a!,
       seriesOf(capture, other.sensor),
       stillPeriods,
       {
@@ -266,7 +266,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   }
   const gyroscopeAgreement: GyroscopeAgreement[] = [];
   for (const other of sensors.gyro.slice(1)) {
-    const agreement = compareGyroscopes([sensors.gyro[0], other], gyro0!, seriesOf(capture, other));
+    const agreement = compareGyroscopes([sensors.gyro[0], other], gyro_a!, seriesOf(capture, other));
     if (agreement) {
       gyroscopeAgreement.push(agreement);
       checks.push(gyroscopeAgreementCheck(agreement, thresholds));

@@ -63,7 +63,7 @@ function hintOf(sensor: string, hints: Record<CaptureField, UnitSpec>): UnitSpec
 }
 
 /**
- * The unit of every sensor (keyed "mag0", "accel0", "gyro0") and of "time" and "current".
+ * The unit of every sensor (keyed "compass_a", "accel_a", "gyro_a") and of "time" and "current".
  *
  * @param stated units the caller states, one per kind (win over everything).
  * @param hints units read from column names, per canonical field.

@@ -4,6 +4,7 @@
  * coupling. Each returns a Check graded by the threshold table; a check that cannot be
  * made is returned as skipped with the reason.
  */
+import { slotWords } from "./sensor-slots";
 import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { fmt, gradedCheck, skippedCheck } from "./checks-common";
 import type { DipMeasurement } from "./dip-check";
@@ -28,7 +29,7 @@ const SITE_ADVICE =
   "Calibrate outdoors, several metres from steel, parked vehicles and reinforced concrete, with nothing magnetic in your pockets.";
 
 export interface MountingComparison {
-  /** The compass the rotation is measured against, e.g. "mag0". */
+  /** The compass the rotation is measured against, e.g. "compass_a". */
   reference: string;
   /** What the declarations imply: v_reference = expected · v_this. */
   expected: Mat3;
@@ -385,7 +386,7 @@ export function dipCheck(
 }
 
 export function mountingCheck(sensor: string, mounting: MountingComparison, thresholds: ThresholdTable): Check {
-  const title = `Mounting rotation against ${mounting.reference}`;
+  const title = `Mounting rotation against ${slotWords(mounting.reference)}`;
   const { result } = mounting;
   if (!result.determined) {
     return skippedCheck(
@@ -407,8 +408,8 @@ export function mountingCheck(sensor: string, mounting: MountingComparison, thre
     digits: 1,
     explain: (status) => ({
       explanation: matchesDeclared
-        ? `Relative to ${mounting.reference}, this compass is turned ${fmt(fromDeclared)}° from its declared rotation (${mounting.expectedName}).`
-        : `Relative to ${mounting.reference}, this compass behaves as if rotated "${result.nearest.name}" (residual ${fmt(result.residualDeg)}°), but it is declared "${mounting.expectedName}": ${fmt(fromDeclared)}° apart. A compass rotated against its declaration makes the vehicle circle or drift away.`,
+        ? `Relative to ${slotWords(mounting.reference)}, this compass is turned ${fmt(fromDeclared)}° from its declared rotation (${mounting.expectedName}).`
+        : `Relative to ${slotWords(mounting.reference)}, this compass behaves as if rotated "${result.nearest.name}" (residual ${fmt(result.residualDeg)}°), but it is declared "${mounting.expectedName}": ${fmt(fromDeclared)}° apart. A compass rotated against its declaration makes the vehicle circle or drift away.`,
       remedy:
         status === "pass"
           ? null

@@ -1,17 +1,26 @@
 /**
  * Recognises the column names people and loggers give to calibration captures and maps them
- * to the engine's canonical fields ("time", "mag0.x", "accel1.z", "gyro0.y", "current",
+ * to the engine's canonical fields ("time", "compass_a.x", "accel_b.z", "gyro_a.y", "current",
  * "throttle"), guessing the unit from a suffix such as "(uT)", "[deg/s]" or "_ms".
  *
  * Matching ignores case, spaces, underscores, dashes and dots, and splits camelCase, so
- * `Mag X (uT)`, `mag_x`, `magX` and `MAG.X` are one spelling. Sensors are numbered from 0 in
+ * `Mag X (uT)`, `mag_x`, `magX` and `MAG.X` are one spelling. Sensors are given letters in
  * the order of the numbers their columns carry, an unnumbered sensor first: `mag_x` with
- * `mag2_x` become mag0 and mag1, as do `compass1_x` with `compass2_x`.
+ * `mag2_x` become compass_a and compass_b, as do `compass1_x` with `compass2_x`.
  */
+import {
+  compareSlots,
+  FIELD_NAMES_HELP,
+  MAX_SLOTS_PER_FAMILY as MAX_SLOTS,
+  parseSlotField,
+  slotName,
+  SLOT_FIELD_PATTERN,
+  type SensorFamily,
+} from "./sensor-slots";
 import type { CaptureField } from "./types";
 import { parseUnitForKind, type QuantityKind, type UnitSpec } from "./units";
 
-export type SensorFamily = "mag" | "accel" | "gyro";
+export type { SensorFamily } from "./sensor-slots";
 
 /** What happened to one column of the file. */
 export interface RecognisedColumn {
@@ -54,11 +63,9 @@ const VECTOR_PATTERN = new RegExp(
 const TIME_PATTERN = /^(timestamp|timesinceboot|timeboot|elapsed|time|t)(s|sec|ms|msec|millis|us|usec|micros|ns)?$/;
 const CURRENT_PATTERN = /^(batterycurrent|battcurrent|batcurrent|motorcurrent|batcurr|current|curr|ibatt|ibat|amps|amp|i)(a|ma|amps)?$/;
 const THROTTLE_PATTERN = /^(throttle|thrust|thr)(pct|percent)?$/;
-const CANONICAL_PATTERN = /^(?:(mag|accel|gyro)\d+\.[xyz]|time|current|throttle)$/;
-
-/** True for a canonical field name such as "mag1.x" or "time". */
+/** True for a canonical field name such as "compass_b.x" or "time". */
 export function isCanonicalField(name: string): boolean {
-  return CANONICAL_PATTERN.test(name);
+  return name === "time" || name === "current" || name === "throttle" || SLOT_FIELD_PATTERN.test(name);
 }
 
 interface NameMatch {
@@ -146,7 +153,7 @@ function compareRawNumbers(a: string, b: string): number {
 }
 
 /**
- * Parses a `--map` option: "colA=mag0.x,Col B=time". Targets must be canonical fields, or
+ * Parses a `--map` option: "colA=compass_a.x,Col B=time". Targets must be canonical fields, or
  * "ignore" to leave a column out. Throws with the offending pair when one is malformed.
  */
 export function parseColumnMap(text: string): Record<string, CaptureField | "ignore"> {
@@ -158,7 +165,7 @@ export function parseColumnMap(text: string): Record<string, CaptureField | "ign
     const field = eq > 0 ? pair.slice(eq + 1).trim() : "";
     if (!column || !field) throw new Error(`"${pair}" is not of the form column=field`);
     if (field !== "ignore" && !isCanonicalField(field)) {
-      throw new Error(`"${field}" is not a field; use time, current, throttle, magN.x|y|z, accelN.x|y|z or gyroN.x|y|z`);
+      throw new Error(`"${field}" is not a field; use ${FIELD_NAMES_HELP}`);
     }
     map[column] = field;
   }
@@ -198,8 +205,9 @@ export function recogniseColumns(headers: string[], map: Record<string, CaptureF
     const rawNumbers = [...new Set(matches.filter((m) => m?.family === family).map((m) => m!.rawNumber))].sort(compareRawNumbers);
     matches.forEach((match, index) => {
       if (match?.family !== family) return;
-      columns[index].field = `${family}${rawNumbers.indexOf(match.rawNumber)}.${match.axis}`;
-      columns[index].how = "name";
+      const position = rawNumbers.indexOf(match.rawNumber);
+      columns[index].field = position < MAX_SLOTS ? `${slotName(family, position)}.${match.axis}` : null;
+      columns[index].how = position < MAX_SLOTS ? "name" : "ignored";
     });
   }
   matches.forEach((match, index) => {
@@ -240,25 +248,24 @@ export function recogniseColumns(headers: string[], map: Record<string, CaptureF
 
 /** The kind of quantity a canonical field holds (null for throttle, which has no unit of ours). */
 export function kindOfField(field: CaptureField): QuantityKind | null {
-  const family = /^(mag|accel|gyro)\d+\./.exec(field)?.[1] as SensorFamily | undefined;
+  const family = parseSlotField(field)?.family;
   if (family) return SENSOR_KIND[family];
   if (field === "time") return "time";
   if (field === "current") return "current";
   return null;
 }
 
-/** Sensor names ("mag0", "accel1", …) present in a list of fields, each with all three axes or not. */
+/** Sensor names ("compass_a", "accel_b", …) present in a list of fields, each with all three axes or not. */
 export function sensorsInFields(fields: Iterable<CaptureField>): Record<SensorFamily, string[]> {
   const found: Record<SensorFamily, Set<string>> = { mag: new Set(), accel: new Set(), gyro: new Set() };
   for (const field of fields) {
-    const match = /^(mag|accel|gyro)(\d+)\.[xyz]$/.exec(field);
-    if (match) found[match[1] as SensorFamily].add(`${match[1]}${match[2]}`);
+    const parsed = parseSlotField(field);
+    if (parsed) found[parsed.family].add(parsed.slot);
   }
-  const byNumber = (a: string, b: string) => Number(a.replace(/\D/g, "")) - Number(b.replace(/\D/g, ""));
   return {
-    mag: [...found.mag].sort(byNumber),
-    accel: [...found.accel].sort(byNumber),
-    gyro: [...found.gyro].sort(byNumber),
+    mag: [...found.mag].sort(compareSlots),
+    accel: [...found.accel].sort(compareSlots),
+    gyro: [...found.gyro].sort(compareSlots),
   };
 }
 

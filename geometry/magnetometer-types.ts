@@ -245,7 +245,7 @@ export interface CaptureSpec {
   siteFieldNed?: Vec3;
   /** Gravity magnitude, m/s². Default 9.80665 (standard gravity, CGPM 1901). */
   gravity?: number;
-  /** One entry per magnetometer (mag0, mag1, …). Default one clean magnetometer. */
+  /** One entry per magnetometer (compass_a, compass_b, …). Default one clean magnetometer. */
   magnetometers?: SimulatedMagnetometerSpec[];
   /** Still holds before the rotation path (the accelerometer procedure). */
   holds?: SimulatedHoldsSpec;
@@ -274,7 +274,7 @@ export interface CaptureTruthMagnetometer {
   loggedHardIronOffset: Vec3;
   mountingRotation: Mat3;
   declaredRotation: Mat3;
-  /** Rotation from this magnetometer's logged frame to mag0's logged frame: v_mag0 = r · v_this. */
+  /** Rotation from this magnetometer's logged frame to compass_a's logged frame: v_mag0 = r · v_this. */
   rotationToMag0: Mat3;
   loggedFrame: "body" | "sensor";
   currentCoupling: Vec3;

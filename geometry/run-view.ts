@@ -158,7 +158,7 @@ export function buildRunView(
 
   const timeS: number[] = [];
   const fieldStrength: Record<string, number[]> = Object.fromEntries(magnetometers.map((m) => [m.sensor, []]));
-  const accel = capture.columns["accel0.x"] ? ["x", "y", "z"].map((a) => capture.columns[`accel0.${a}`]) : null;
+  const accel = capture.columns["accel_a.x"] ? ["x", "y", "z"].map((a) => capture.columns[`accel_a.${a}`]) : null;
   const accelMagnitude: number[] | null = accel ? [] : null;
   const current = capture.columns.current ? ([] as number[]) : null;
   const throttle = capture.columns.throttle ? ([] as number[]) : null;
@@ -216,7 +216,11 @@ export function buildRunView(
     let inputMean = 0;
     for (let i = 0; i < n; i++) {
       if (!inRun[i]) continue;
-      const v = [capture.columns[`${m.sensor}.x`][i] - b[0], capture.columns[`${m.sensor}.y`][i] - b[1], capture.columns[`${m.sensor}.z`][i] - b[2]];
+      const v = [
+        capture.columns[`${m.sensor}.x`][i] - b[0],
+        capture.columns[`${m.sensor}.y`][i] - b[1],
+        capture.columns[`${m.sensor}.z`][i] - b[2],
+      ];
       for (let r = 0; r < 3; r++) off[r] += W[r][0] * v[0] + W[r][1] * v[1] + W[r][2] * v[2];
       inputMean += input[i];
       count += 1;
@@ -227,7 +231,11 @@ export function buildRunView(
     const step = stride(n, 800);
     for (let i = 0; i < n; i += step) {
       if (!inRun[i]) continue;
-      const v = [capture.columns[`${m.sensor}.x`][i] - b[0], capture.columns[`${m.sensor}.y`][i] - b[1], capture.columns[`${m.sensor}.z`][i] - b[2]];
+      const v = [
+        capture.columns[`${m.sensor}.x`][i] - b[0],
+        capture.columns[`${m.sensor}.y`][i] - b[1],
+        capture.columns[`${m.sensor}.z`][i] - b[2],
+      ];
       x.push(round(input[i]));
       for (let r = 0; r < 3; r++) d[r].push(round(W[r][0] * v[0] + W[r][1] * v[1] + W[r][2] * v[2] - off[r]));
     }

@@ -17,6 +17,7 @@
  * The default site field is invented (about 48 µT, dip 67°); pass the World Magnetic Model
  * value for a real site.
  */
+import { slotName } from "./sensor-slots";
 import type {
   CaptureSpec,
   CaptureTruth,
@@ -58,7 +59,7 @@ interface MagnetometerModel {
 }
 
 function magnetometerModel(spec: SimulatedMagnetometerSpec, fieldStrength: number, mag0Frame: Mat3 | null): MagnetometerModel {
-  // mag0Frame: mag0's body-to-logged rotation (null for mag0 itself).
+  // mag0Frame: compass_a's body-to-logged rotation (null for compass_a itself).
   const softIron =
     typeof spec.softIron === "string" || spec.softIron === undefined ? SOFT_IRON_LEVELS[spec.softIron ?? "none"] : spec.softIron;
   const offset = spec.hardIronOffset ?? [0, 0, 0];
@@ -126,8 +127,8 @@ function buildSegments(spec: CaptureSpec, field: Vec3, random: RandomSource): Mo
 }
 
 /**
- * Simulate one capture. Columns: time (s), mag0.x…z (µT) and more magnetometers in order,
- * accel0.x…z (m/s²), gyro0.x…z (rad/s), and current (A) and throttle (0–1) when a motor run
+ * Simulate one capture. Columns: time (s), compass_a.x…z (µT) and more magnetometers in order,
+ * accel_a.x…z (m/s²), gyro_a.x…z (rad/s), and current (A) and throttle (0–1) when a motor run
  * is asked for. The truth holds every value the faults were built from.
  */
 export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
@@ -160,9 +161,9 @@ export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
   const length = Math.max(1, Math.round(totalSeconds * rate));
 
   const fields: string[] = ["time"];
-  mags.forEach((_, i) => fields.push(`mag${i}.x`, `mag${i}.y`, `mag${i}.z`));
-  if (accelSpec) fields.push("accel0.x", "accel0.y", "accel0.z");
-  if (gyroSpec) fields.push("gyro0.x", "gyro0.y", "gyro0.z");
+  mags.forEach((_, i) => fields.push(`${slotName("mag", i)}.x`, `${slotName("mag", i)}.y`, `${slotName("mag", i)}.z`));
+  if (accelSpec) fields.push("accel_a.x", "accel_a.y", "accel_a.z");
+  if (gyroSpec) fields.push("gyro_a.x", "gyro_a.y", "gyro_a.z");
   if (spec.currentTest) fields.push("current", "throttle");
   const columns: Record<string, Float64Array> = {};
   for (const f of fields) columns[f] = new Float64Array(length);
@@ -221,23 +222,23 @@ export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
         raw[a] = v;
       }
       const logged = mulMatVec(m.sensorToLogged, raw);
-      columns[`mag${j}.x`][i] = logged[0];
-      columns[`mag${j}.y`][i] = logged[1];
-      columns[`mag${j}.z`][i] = logged[2];
+      columns[`${slotName("mag", j)}.x`][i] = logged[0];
+      columns[`${slotName("mag", j)}.y`][i] = logged[1];
+      columns[`${slotName("mag", j)}.z`][i] = logged[2];
     });
 
     if (accelSpec) {
       const a = here.acceleration;
       const specific = mulMatVec(toBody, [a[0], a[1], a[2] - gravity]);
-      columns["accel0.x"][i] = accelSpec.scale[0] * specific[0] + accelSpec.offset[0] + random.gaussian(0, accelSpec.noise);
-      columns["accel0.y"][i] = accelSpec.scale[1] * specific[1] + accelSpec.offset[1] + random.gaussian(0, accelSpec.noise);
-      columns["accel0.z"][i] = accelSpec.scale[2] * specific[2] + accelSpec.offset[2] + random.gaussian(0, accelSpec.noise);
+      columns["accel_a.x"][i] = accelSpec.scale[0] * specific[0] + accelSpec.offset[0] + random.gaussian(0, accelSpec.noise);
+      columns["accel_a.y"][i] = accelSpec.scale[1] * specific[1] + accelSpec.offset[1] + random.gaussian(0, accelSpec.noise);
+      columns["accel_a.z"][i] = accelSpec.scale[2] * specific[2] + accelSpec.offset[2] + random.gaussian(0, accelSpec.noise);
     }
     if (gyroSpec) {
       const w = rotationLog(mulMat(toBody, next.attitude));
-      columns["gyro0.x"][i] = w[0] * rate + gyroSpec.bias[0] + random.gaussian(0, gyroSpec.noise);
-      columns["gyro0.y"][i] = w[1] * rate + gyroSpec.bias[1] + random.gaussian(0, gyroSpec.noise);
-      columns["gyro0.z"][i] = w[2] * rate + gyroSpec.bias[2] + random.gaussian(0, gyroSpec.noise);
+      columns["gyro_a.x"][i] = w[0] * rate + gyroSpec.bias[0] + random.gaussian(0, gyroSpec.noise);
+      columns["gyro_a.y"][i] = w[1] * rate + gyroSpec.bias[1] + random.gaussian(0, gyroSpec.noise);
+      columns["gyro_a.z"][i] = w[2] * rate + gyroSpec.bias[2] + random.gaussian(0, gyroSpec.noise);
     }
   }
 

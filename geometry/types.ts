@@ -35,7 +35,7 @@ export interface Check {
   id: string;
   title: string;
   status: CheckStatus;
-  /** Which sensor the check is about, e.g. "mag0"; absent for whole-capture checks. */
+  /** Which sensor the check is about, e.g. "compass_a"; absent for whole-capture checks. */
   sensor?: string;
   measured: number | string | null;
   threshold: string | null;
@@ -48,7 +48,7 @@ export interface Check {
 /**
  * Canonical names for the quantities a capture may carry. Magnetometers, accelerometers
  * and gyroscopes are numbered from 0 in the order they are declared.
- * Examples: "time", "mag0.x", "mag1.z", "accel0.y", "gyro0.x", "current", "throttle".
+ * Examples: "time", "compass_a.x", "compass_b.z", "accel_a.y", "gyro_a.x", "current", "throttle".
  */
 export type CaptureField = string;
 

@@ -6,6 +6,7 @@
  * check is to that cause); a failed check counts three times its weight, a warning once.
  * A cause is offered only when at least one of its checks warned or failed.
  */
+import { slotWords } from "./sensor-slots";
 import type { Check, CheckStatus } from "./types";
 
 export type VerdictStatus = "pass" | "warn" | "fail";
@@ -176,7 +177,7 @@ function evidenceLabel(check: Check): string {
 
 function evidenceWords(check: Check): string {
   const value = check.measured === null ? "" : ` ${check.measured}${check.unit ? ` ${check.unit}` : ""}`;
-  const who = check.sensor ? ` (${check.sensor})` : "";
+  const who = check.sensor ? ` (${slotWords(check.sensor)})` : "";
   return `${check.title}${who}${value}: ${check.status === "fail" ? "failed" : "warning"}`;
 }
 

@@ -17,7 +17,7 @@ export const SENSOR_KIND_LABELS: Record<SensorKind, string> = {
   accelerometer: "Accelerometer",
   gyroscope: "Gyroscope",
 };
-/** Slot prefix of each sensor kind in a capture's canonical fields ("mag0.x", "accel1.z", …). */
+/** Slot prefix of each sensor kind in a capture's canonical fields ("compass_a.x", "accel_b.z", …). */
 export const SENSOR_SLOT_PREFIX: Record<SensorKind, string> = { magnetometer: "mag", accelerometer: "accel", gyroscope: "gyro" };
 
 export const PLACEMENTS = ["internal", "external"] as const;

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-/** Which registered sensor sits in which slot ("mag0", "accel1", …) of a run's capture. */
+/** Which registered sensor sits in which slot ("compass_a", "accel_b", …) of a run's capture. */
 export class RunSensor extends Model<InferAttributes<RunSensor>, InferCreationAttributes<RunSensor>> {
   declare runId: string;
   declare sensorId: string;

@@ -32,11 +32,11 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare fileName: string;
   declare fileSize: number;
   declare fileSha256: CreationOptional<string | null>;
-  /** CSV column name → canonical field ("mag0.x", "time", …). */
+  /** CSV column name → canonical field ("compass_a.x", "time", …). */
   declare columnMapping: Record<string, string>;
   /** Units per sensor kind: { field: "uT", accel: "m/s2", rate: "rad/s", time: "s" } */
   declare units: Record<string, string>;
-  /** Canonical slot ("mag0") → sensor id. */
+  /** Canonical slot ("compass_a") → sensor id. */
   declare sensorSlots: Record<string, string>;
   declare modelChoice: ModelChoice;
   declare status: CreationOptional<RunStatus>;

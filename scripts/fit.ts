@@ -3,7 +3,7 @@
  *
  *   npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT]
  *                  [--model auto|sphere|axis|full] [--map col=field,...]
- *                  [--mount mag1=yaw 90,...] [--seed N]
+ *                  [--mount compass_b=yaw 90,...] [--seed N]
  *
  * Prints one JSON document on stdout. A file that cannot be read gets a message naming the
  * row and column on stderr and exit code 2; so do bad arguments. A southern or western
@@ -16,11 +16,12 @@ import type { CaptureUnits } from "@/geometry/capture-units";
 import { parseColumnMap } from "@/geometry/column-names";
 import type { Site } from "@/geometry/magnetic-reference";
 import type { MagModelChoice } from "@/geometry/magnetometer-types";
+import { familyOfSlot } from "@/geometry/sensor-slots";
 import { parseUnit } from "@/geometry/units";
 import { IngestError, parseCsvStream } from "@/lib/ingest/csv-table";
 
 const USAGE =
-  "usage: npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT[,g,deg/s,ms]] [--model auto|sphere|axis|full] [--map col=field,...] [--mount magN=rotation,...] [--seed N]";
+  "usage: npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT[,g,deg/s,ms]] [--model auto|sphere|axis|full] [--map col=field,...] [--mount compass_b=mounting,...] [--seed N]";
 
 class UsageError extends Error {}
 
@@ -61,7 +62,9 @@ function parseMounts(text: string): Record<string, string> {
   const mounts: Record<string, string> = {};
   for (const pair of text.split(",").filter((s) => s.trim())) {
     const [sensor, rotation] = pair.split("=").map((s) => s.trim());
-    if (!/^mag\d+$/.test(sensor ?? "") || !rotation) throw new UsageError(`--mount "${pair}" should be magN=rotation, e.g. mag1=yaw 90`);
+    if (familyOfSlot(sensor ?? "") !== "mag" || !rotation) {
+      throw new UsageError(`--mount "${pair}" should be compass=mounting, e.g. compass_b=x-right.z-down`);
+    }
     mounts[sensor] = rotation;
   }
   return mounts;

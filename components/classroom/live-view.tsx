@@ -1,5 +1,6 @@
 "use client";
 
+import { sensorName } from "@/components/run/sensor-names";
 import type { LiveSnapshot } from "@/geometry/live-snapshot";
 import type { LikelyCause } from "@/geometry/verdict";
 import { CheckList } from "@/components/run/check-list";
@@ -129,7 +130,7 @@ export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true }: 
                   className={mapped.length > 1 ? undefined : "mx-auto max-w-3xl"}
                   key={m.sensor}
                   magnetometer={m}
-                  sensorLabel={sensorLabels[m.sensor] ? `${m.sensor} · ${sensorLabels[m.sensor]}` : m.sensor}
+                  sensorLabel={sensorName(m.sensor, sensorLabels)}
                 />
               ))}
             </section>

@@ -43,4 +43,4 @@ export function speedWords(speed: number): string {
 }
 
 /** What the class calls the simulated compasses (the scenario's first and second compass). */
-export const SCENARIO_SENSOR_LABELS: Record<string, string> = { mag0: "board compass", mag1: "second compass" };
+export const SCENARIO_SENSOR_LABELS: Record<string, string> = { compass_a: "board compass", compass_b: "second compass" };

@@ -1,8 +1,19 @@
+import { sensorName } from "@/components/run/sensor-names";
 import type { RunDetail, RunVersionSummary } from "@/lib/data/runs";
 
 /** The one-page report's heading: only on paper. */
-export function PrintHeader({ run, version, verdict, workspaceName }: { run: RunDetail; version: RunVersionSummary | null; verdict: string | null; workspaceName: string }) {
-  const sensors = run.sensors.map((s) => `${s.slot} ${s.label}`).join(", ");
+export function PrintHeader({
+  run,
+  version,
+  verdict,
+  workspaceName,
+}: {
+  run: RunDetail;
+  version: RunVersionSummary | null;
+  verdict: string | null;
+  workspaceName: string;
+}) {
+  const sensors = run.sensors.map((s) => sensorName(s.slot, { [s.slot]: s.label })).join(", ");
   return (
     <header className="hidden border-b-2 border-chart-ink pb-2 print:block">
       <p className="text-xs uppercase tracking-widest">Loxodrome calibration report · {workspaceName}</p>
@@ -16,7 +27,9 @@ export function PrintHeader({ run, version, verdict, workspaceName }: { run: Run
         </div>
         <div>
           <dt className="inline font-semibold">Site: </dt>
-          <dd className="inline">{run.site ? `${run.site.name} (${run.site.latitudeDeg.toFixed(3)}°, ${run.site.longitudeDeg.toFixed(3)}°)` : "none given"}</dd>
+          <dd className="inline">
+            {run.site ? `${run.site.name} (${run.site.latitudeDeg.toFixed(3)}°, ${run.site.longitudeDeg.toFixed(3)}°)` : "none given"}
+          </dd>
         </div>
         <div>
           <dt className="inline font-semibold">Captured: </dt>

@@ -1,3 +1,4 @@
+import { sensorName } from "@/components/run/sensor-names";
 import type { RunView } from "@/geometry/run-view";
 import { Plots } from "@/components/run/plots";
 import { plotDataOf } from "@/components/run/plot-data";
@@ -30,11 +31,7 @@ export function RunViewPanel({
           </h2>
           <div className={mapped.length > 1 ? "grid gap-4 xl:grid-cols-2" : ""}>
             {mapped.map((m) => (
-              <CoverageMap
-                key={m.sensor}
-                magnetometer={m}
-                sensorLabel={sensorLabels[m.sensor] ? `${m.sensor} · ${sensorLabels[m.sensor]}` : m.sensor}
-              />
+              <CoverageMap key={m.sensor} magnetometer={m} sensorLabel={sensorName(m.sensor, sensorLabels)} />
             ))}
           </div>
         </section>

@@ -82,7 +82,7 @@ export function rankCauses(causes: readonly LikelyCause[]): LikelyCause[] {
   return [...causes].sort((a, b) => b.score - a.score);
 }
 
-/** The id a check's row carries, so a likely cause can link to the checks behind it ("mag.mounting@mag1"). */
+/** The id a check's row carries, so a likely cause can link to the checks behind it ("mag.mounting@compass_b"). */
 export function checkAnchor(checkId: string, sensor?: string | null): string {
   return `check-${checkId}${sensor ? `-${sensor}` : ""}`.replace(/[^a-zA-Z0-9_-]+/g, "-");
 }

@@ -10,7 +10,7 @@ export interface ComparisonProps {
   /** The previous run of the same sensor, or null when this is its first. */
   previous: RunFigures | null;
   previousHref: string | null;
-  /** Whose figures these are, e.g. "Compass mag0 · board". */
+  /** Whose figures these are, e.g. "Compass A · board". */
   sensorName?: string;
 }
 

@@ -22,7 +22,7 @@ export interface VerdictBannerProps {
   diagnosis: LikelyCause[];
   /** The checks, for the tally under the summary and the titles of the evidence. */
   checks?: Check[];
-  /** Labels by sensor slot ("mag1" → "mast module"). */
+  /** Labels by sensor slot ("compass_b" → "mast module"). */
   sensorLabels?: Record<string, string>;
 }
 

@@ -1,5 +1,6 @@
 "use client";
 
+import { slotWords } from "@/geometry/sensor-slots";
 import Link from "next/link";
 import { FieldShell, SelectField, TextField } from "@/components/ui/field";
 import type { SensorFamily } from "@/geometry/column-names";
@@ -108,7 +109,7 @@ export function CaptureDetails(props: CaptureDetailsProps) {
                     ? `This vehicle has no ${SENSOR_KIND_LABELS[kind].toLowerCase()} registered; the run is checked without its declared mounting.`
                     : undefined;
               return (
-                <FieldShell key={slot} id={id} label={`${slot} (${SENSOR_KIND_LABELS[kind].toLowerCase()})`} error={error} hint={hint}>
+                <FieldShell key={slot} id={id} label={`${slotWords(slot)} (columns ${slot}.x, .y, .z)`} error={error} hint={hint}>
                   <select
                     id={id}
                     className="field-input"

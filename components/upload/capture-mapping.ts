@@ -4,6 +4,7 @@
  * units the column names state. No React here, so the rules read in one place.
  */
 import { recogniseColumns, sensorsInFields, type ColumnRecognition, type SensorFamily } from "@/geometry/column-names";
+import { parseSlotField, slotName, slotWords } from "@/geometry/sensor-slots";
 import type { CaptureField } from "@/geometry/types";
 import { UNIT_LABEL, type QuantityKind, type UnitSpec } from "@/geometry/units";
 import { ACCEL_UNITS, FIELD_UNITS, RATE_UNITS, type SensorKind } from "@/lib/fleet-terms";
@@ -31,7 +32,7 @@ export const COLUMN_CHOICE_GROUPS: { label: string; options: { value: ColumnChoi
   },
   ...(["mag", "accel", "gyro"] as const).map((family) => ({
     label: `${FAMILY_LABELS[family]}s`,
-    options: Array.from({ length: SLOTS_PER_FAMILY }, (_, n) => (["x", "y", "z"] as const).map((axis) => `${family}${n}.${axis}`))
+    options: Array.from({ length: SLOTS_PER_FAMILY }, (_, n) => (["x", "y", "z"] as const).map((axis) => `${slotName(family, n)}.${axis}`))
       .flat()
       .map((field) => ({ value: field, label: field })),
   })),
@@ -75,7 +76,7 @@ export function unitText(spec: UnitSpec): string {
 
 export interface MappingReview {
   recognition: ColumnRecognition;
-  /** Sensor slots the mapping fills ("mag0", "accel0", …), by family. */
+  /** Sensor slots the mapping fills ("compass_a", "accel_a", …), by family. */
   slots: Record<SensorFamily, string[]>;
   /** Column names feeding each slot, for matching a sensor's column hints. */
   columnsBySlot: Record<string, string[]>;
@@ -107,13 +108,13 @@ export function reviewMapping(headers: string[], mapping: ColumnMapping): Mappin
     problems.push("No magnetometer or accelerometer axis is mapped: give at least one sensor’s x, y and z columns before uploading.");
   }
   for (const { sensor, missing } of recognition.incompleteSensors) {
-    problems.push(`${sensor} needs all three axes: no column is mapped to ${missing.join(" or ")}.`);
+    problems.push(`${slotWords(sensor)} needs all three axes: no column is mapped to ${missing.join(" or ")}.`);
   }
   if (Object.keys(columnProblems).length > 0) problems.push("Two columns are mapped to the same field: choose another for one of them.");
 
   const columnsBySlot: Record<string, string[]> = {};
   for (const column of recognition.columns) {
-    const slot = /^((?:mag|accel|gyro)\d+)\./.exec(column.field ?? "")?.[1];
+    const slot = parseSlotField(column.field ?? "")?.slot;
     if (slot) (columnsBySlot[slot] ??= []).push(column.header.trim());
   }
 

@@ -1,3 +1,4 @@
+import { slotWords } from "@/geometry/sensor-slots";
 import type { RunViewMagnetometer } from "@/geometry/run-view";
 import {
   MAP_HALF_HEIGHT,
@@ -58,7 +59,7 @@ const AXES: { label: string; direction: Vec3; dx: number; dy: number; anchor: "s
 
 export interface CoverageMapProps {
   magnetometer: RunViewMagnetometer;
-  /** A person's name for the compass ("Mast compass"); the slot ("mag0") otherwise. */
+  /** A person's name for the compass ("Compass B · mast module"); the slot in words otherwise. */
   sensorLabel?: string;
   /** Leave out the legend (when one is shown beside it already). */
   legend?: boolean;
@@ -69,7 +70,7 @@ export function CoverageMap({ magnetometer, sensorLabel, legend = true, classNam
   const hatchId = useSvgId("map-hatch");
   const rimId = useSvgId("map-rim");
   const summary = summariseCoverage(magnetometer);
-  const name = sensorLabel ?? magnetometer.sensor;
+  const name = sensorLabel ?? slotWords(magnetometer.sensor);
   const { cellCounts, gridResolution, minSamplesPerCell, largestGapDeg, gapCentre } = magnetometer;
   if (!summary || !cellCounts || !gridResolution) {
     return <p className="text-sm text-chart-muted">No coverage was measured for {name}, so there is no map to draw.</p>;

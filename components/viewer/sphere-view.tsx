@@ -1,5 +1,6 @@
 "use client";
 
+import { sensorName } from "@/components/run/sensor-names";
 import { useCallback, useId, useMemo, useState } from "react";
 import type { RunView } from "@/geometry/run-view";
 import { CoverageLegend } from "./coverage-legend";
@@ -16,9 +17,9 @@ export type SphereViewMode = CloudKind | "both";
 
 export interface SphereViewProps {
   view: RunView;
-  /** The compass to show first ("mag0"); the first in the view otherwise. */
+  /** The compass to show first ("compass_a"); the first in the view otherwise. */
   sensor?: string;
-  /** People's names for the compasses, by slot ("mag0" → "Mast compass"). */
+  /** People's names for the compasses, by slot ("compass_a" → "Mast compass"). */
   sensorLabels?: Record<string, string>;
 }
 
@@ -57,7 +58,7 @@ export default function SphereView({ view, sensor, sensorLabels = {} }: SphereVi
   const store = useMemo(() => new OrbitStore(DEFAULT_POSE), []);
   const model = useMemo(() => (chosen ? buildSceneModel(view, chosen) : null), [view, chosen]);
   const id = useId();
-  const nameOf = (slot: string) => sensorLabels[slot] ?? slot;
+  const nameOf = (slot: string) => sensorName(slot, sensorLabels);
 
   if (!magnetometer || !model) {
     return <p className="card p-5 text-sm text-chart-muted">This capture has no magnetometer, so there is no sphere to draw.</p>;

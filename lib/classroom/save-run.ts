@@ -18,8 +18,15 @@ export const CLASSROOM_VEHICLE = "Classroom simulator";
 
 /** The simulator's sensors, one per slot. Values are logged in body axes already, hence no mounting rotation. */
 const SENSORS: Record<string, SensorInput> = {
-  mag0: { kind: "magnetometer", label: "simulated compass", placement: "internal", mountingRotation: "none", units: "uT", columnHints: [] },
-  mag1: {
+  compass_a: {
+    kind: "magnetometer",
+    label: "simulated compass",
+    placement: "internal",
+    mountingRotation: "none",
+    units: "uT",
+    columnHints: [],
+  },
+  compass_b: {
     kind: "magnetometer",
     label: "simulated mast compass",
     placement: "external",
@@ -27,7 +34,7 @@ const SENSORS: Record<string, SensorInput> = {
     units: "uT",
     columnHints: [],
   },
-  accel0: {
+  accel_a: {
     kind: "accelerometer",
     label: "simulated IMU",
     placement: "internal",
@@ -35,7 +42,7 @@ const SENSORS: Record<string, SensorInput> = {
     units: "m/s2",
     columnHints: [],
   },
-  gyro0: { kind: "gyroscope", label: "simulated IMU", placement: "internal", mountingRotation: "none", units: "rad/s", columnHints: [] },
+  gyro_a: { kind: "gyroscope", label: "simulated IMU", placement: "internal", mountingRotation: "none", units: "rad/s", columnHints: [] },
 };
 
 /** Find a row, or create it; when the create fails because another request made it first, use theirs. */

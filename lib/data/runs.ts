@@ -1,5 +1,6 @@
 import "server-only";
 import { Op, type Order, type WhereOptions } from "sequelize";
+import { compareSlots, familyOfSlot } from "@/geometry/sensor-slots";
 import { UserFacingError } from "@/lib/errors";
 import { recordAudit } from "@/lib/audit";
 import { db } from "@/lib/db";
@@ -163,7 +164,8 @@ export async function createRun(
   if (sensors.length !== sensorIds.length) throw new UserFacingError("Every sensor must be one of this vehicle's sensors.", "sensorSlots");
   for (const [slot, sensorId] of Object.entries(input.sensorSlots)) {
     const sensor = sensors.find((s) => s.id === sensorId)!;
-    const expected = slot.startsWith("mag") ? "magnetometer" : slot.startsWith("accel") ? "accelerometer" : "gyroscope";
+    const family = familyOfSlot(slot);
+    const expected = family === "mag" ? "magnetometer" : family === "accel" ? "accelerometer" : "gyroscope";
     if (sensor.kind !== expected)
       throw new UserFacingError(`Slot ${slot} needs a ${expected}; "${sensor.label}" is a ${sensor.kind}.`, "sensorSlots");
   }
@@ -426,12 +428,15 @@ export async function listRuns(
  * The latest earlier finished run that shares a magnetometer (or, failing that, any sensor)
  * with this one: what "the previous calibration of this sensor" means on the run page.
  */
-export async function getPreviousRun(workspaceId: string, runId: string): Promise<{ run: RunSummary; results: Record<string, unknown>; slot: string; sensorId: string } | null> {
+export async function getPreviousRun(
+  workspaceId: string,
+  runId: string,
+): Promise<{ run: RunSummary; results: Record<string, unknown>; slot: string; sensorId: string } | null> {
   const { models, sequelize } = db();
   const run = await models.Run.findOne({ where: { workspaceId, id: runId } });
   if (!run) return null;
   const slots = await models.RunSensor.findAll({ where: { runId }, order: [["slot", "ASC"]] });
-  const ordered = [...slots.filter((s) => s.slot.startsWith("mag")), ...slots.filter((s) => !s.slot.startsWith("mag"))];
+  const ordered = [...slots].sort((a, b) => compareSlots(a.slot, b.slot));
   for (const slot of ordered) {
     const [rows] = (await sequelize.query(
       `SELECT r.id, rs.slot FROM runs r JOIN run_sensors rs ON rs.run_id = r.id

@@ -15,7 +15,7 @@ export interface CorrectionContext {
   siteName: string | null;
   verdict: string | null;
   signedOff: { by: string | null; at: string } | null;
-  /** slot → the sensor's label, e.g. { mag0: "board", mag1: "mast module" } */
+  /** slot → the sensor's label, e.g. { compass_a: "board", compass_b: "mast module" } */
   sensorLabels: Record<string, string>;
 }
 
@@ -25,13 +25,36 @@ export interface CorrectionDocument {
   run: CorrectionContext;
   applyMagnetometer: string;
   applyAccelerometer: string;
-  magnetometers: { slot: string; label: string | null; model: string; offset: Vec3; matrix: Mat3; fieldStrength: number; residualRms: number; units: "uT" }[];
+  magnetometers: {
+    slot: string;
+    label: string | null;
+    model: string;
+    offset: Vec3;
+    matrix: Mat3;
+    fieldStrength: number;
+    residualRms: number;
+    units: "uT";
+  }[];
   accelerometers: { slot: string; label: string | null; model: string; offset: Vec3; matrix: Mat3; scale: Vec3; units: "m/s2" }[];
 }
 
 interface ResultsShape {
-  magnetometers?: { sensor: string; ok: boolean; model: string | null; offset: Vec3 | null; softIron: Mat3 | null; fieldStrength: number | null; residualRms: number | null }[];
-  accelerometers?: { sensor: string; ok: boolean; offset: Vec3 | null; scale: Vec3 | null; calibration: { ok: boolean; model?: string; correctionMatrix?: Mat3 } }[];
+  magnetometers?: {
+    sensor: string;
+    ok: boolean;
+    model: string | null;
+    offset: Vec3 | null;
+    softIron: Mat3 | null;
+    fieldStrength: number | null;
+    residualRms: number | null;
+  }[];
+  accelerometers?: {
+    sensor: string;
+    ok: boolean;
+    offset: Vec3 | null;
+    scale: Vec3 | null;
+    calibration: { ok: boolean; model?: string; correctionMatrix?: Mat3 };
+  }[];
 }
 
 /** Only fits that succeeded become corrections; a refused compass is left out, not zeroed. */
@@ -114,7 +137,8 @@ export function correctionHeader(doc: CorrectionDocument): string {
     matrix.forEach((row, i) => out.push(`    { ${row.map(cNumber).join(", ")} }${i < 2 ? "," : ""}`));
     out.push("};", "");
   };
-  for (const m of doc.magnetometers) emit(m.slot, m.label, m.offset, m.matrix, `model ${m.model}, field strength ${m.fieldStrength.toFixed(2)} uT`);
+  for (const m of doc.magnetometers)
+    emit(m.slot, m.label, m.offset, m.matrix, `model ${m.model}, field strength ${m.fieldStrength.toFixed(2)} uT`);
   for (const a of doc.accelerometers) emit(a.slot, a.label, a.offset, a.matrix, `model ${a.model}`);
   out.push(`#endif /* ${guard} */`, "");
   return out.join("\n");

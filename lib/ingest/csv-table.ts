@@ -146,7 +146,7 @@ class TableBuilder {
       throw new IngestError(
         this.row,
         null,
-        `missing required columns: no magnetometer, accelerometer or gyroscope columns recognised among ${this.header.map((h) => `"${h}"`).join(", ")}; name them like mag_x or accel_x, or map them with --map column=mag0.x`,
+        `missing required columns: no magnetometer, accelerometer or gyroscope columns recognised among ${this.header.map((h) => `"${h}"`).join(", ")}; name them like mag_x or accel_x, or map them with --map column=compass_a.x`,
       );
     }
     if ((this.options.requireTime ?? true) && !("time" in recognition.fieldIndex)) {

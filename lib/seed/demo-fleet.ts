@@ -146,10 +146,10 @@ const RUNS: DemoRun[] = [
     capturedOn: "2026-09-14",
     title: "Annual check: both compasses",
     slots: {
-      mag0: "magnetometer:board",
-      mag1: "magnetometer:mast module",
-      accel0: "accelerometer:board IMU",
-      gyro0: "gyroscope:board IMU",
+      compass_a: "magnetometer:board",
+      compass_b: "magnetometer:mast module",
+      accel_a: "accelerometer:board IMU",
+      gyro_a: "gyroscope:board IMU",
     },
     spec: {
       seed: 101,
@@ -163,7 +163,7 @@ const RUNS: DemoRun[] = [
     site: "Quillmere strip",
     capturedOn: "2026-10-02",
     title: "Rushed turn: never turned over",
-    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    slots: { compass_a: "magnetometer:board", accel_a: "accelerometer:board IMU", gyro_a: "gyroscope:board IMU" },
     spec: { seed: 102, path: "upper-half", magnetometers: [{ hardIronOffset: [8, 11, -15], softIron: "mild" }] },
     sharedWithStudents: true,
   },
@@ -173,10 +173,10 @@ const RUNS: DemoRun[] = [
     capturedOn: "2026-10-19",
     title: "After mast refit",
     slots: {
-      mag0: "magnetometer:board",
-      mag1: "magnetometer:mast module",
-      accel0: "accelerometer:board IMU",
-      gyro0: "gyroscope:board IMU",
+      compass_a: "magnetometer:board",
+      compass_b: "magnetometer:mast module",
+      accel_a: "accelerometer:board IMU",
+      gyro_a: "gyroscope:board IMU",
     },
     // The refitted module sits turned 90° in yaw; it is still declared as not rotated.
     spec: {
@@ -190,7 +190,7 @@ const RUNS: DemoRun[] = [
     site: "Saltmarsh depot",
     capturedOn: "2026-10-23",
     title: "In the yard, beside the container",
-    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    slots: { compass_a: "magnetometer:board", accel_a: "accelerometer:board IMU", gyro_a: "gyroscope:board IMU" },
     spec: { seed: 104, steel: { distanceM: 0.7, strength: 6 }, magnetometers: [{ hardIronOffset: [-20, 4, 9] }] },
   },
   {
@@ -198,7 +198,7 @@ const RUNS: DemoRun[] = [
     site: "Quillmere strip",
     capturedOn: "2026-10-30",
     title: "Motor current test (props off, restrained)",
-    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    slots: { compass_a: "magnetometer:board", accel_a: "accelerometer:board IMU", gyro_a: "gyroscope:board IMU" },
     spec: {
       seed: 105,
       holds: { faces: ["+z"] },
@@ -213,7 +213,7 @@ const RUNS: DemoRun[] = [
     site: "Quillmere strip",
     capturedOn: "2026-11-06",
     title: "Six-face hold, shaky hands",
-    slots: { mag0: "magnetometer:board", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    slots: { compass_a: "magnetometer:board", accel_a: "accelerometer:board IMU", gyro_a: "gyroscope:board IMU" },
     spec: {
       seed: 106,
       holds: { faces: [...SIX], wobbleDeg: 0.8, holdSeconds: 5 },
@@ -226,7 +226,7 @@ const RUNS: DemoRun[] = [
     site: "Tarn jetty",
     capturedOn: "2026-11-20",
     title: "Season start",
-    slots: { mag0: "magnetometer:mast module", accel0: "accelerometer:board IMU", gyro0: "gyroscope:board IMU" },
+    slots: { compass_a: "magnetometer:mast module", accel_a: "accelerometer:board IMU", gyro_a: "gyroscope:board IMU" },
     spec: { seed: 107, holds: { faces: [...SIX] }, magnetometers: [{ hardIronOffset: [2, -4, 6], softIron: "mild" }] },
   },
 ];

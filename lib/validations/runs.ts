@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { isCanonicalField } from "@/geometry/column-names";
+import { FIELD_NAMES_HELP, SLOT_PATTERN } from "@/geometry/sensor-slots";
 import { parseUnitForKind, type QuantityKind } from "@/geometry/units";
 import { MODEL_CHOICES, RUN_STATUSES, UPLOAD_LIMITS, VERDICTS } from "@/lib/fleet-terms";
 
@@ -14,7 +16,7 @@ function unitText(kind: QuantityKind) {
     .optional();
 }
 
-const FIELD_PATTERN = /^(time|current|throttle|ignore|(mag|accel|gyro)\d\.[xyz])$/;
+const isMappingTarget = (value: string) => value === "ignore" || isCanonicalField(value);
 
 export const createRunSchema = z
   .object({
@@ -35,10 +37,7 @@ export const createRunSchema = z
       .max(UPLOAD_LIMITS.maxBytes, `The file is larger than ${UPLOAD_LIMITS.maxBytes / 1024 / 1024} MB.`),
     /** CSV column → canonical field; columns not listed are recognised from their names. */
     columnMapping: z
-      .record(
-        z.string().max(120),
-        z.string().regex(FIELD_PATTERN, "Map columns to time, current, throttle, ignore or a sensor axis such as mag0.x."),
-      )
+      .record(z.string().max(120), z.string().refine(isMappingTarget, `Map columns to ignore, ${FIELD_NAMES_HELP}.`))
       .default({}),
     /** Units per quantity as written by the logger: "uT", "nT", "mG", "G", "m/s2", "g", "deg/s", "rad/s", "ms", or "counts:0.15". */
     units: z
@@ -50,8 +49,10 @@ export const createRunSchema = z
         current: unitText("current"),
       })
       .default({}),
-    /** Capture slot ("mag0", "accel0", …) → the vehicle's sensor logged in it. */
-    sensorSlots: z.record(z.string().regex(/^(mag|accel|gyro)\d$/, "Slots are named like mag0, accel0, gyro0."), z.uuid()).default({}),
+    /** Capture slot ("compass_a", "accel_a", …) → the vehicle's sensor logged in it. */
+    sensorSlots: z
+      .record(z.string().regex(SLOT_PATTERN, "Slots are named like compass_a, compass_b, accel_a, gyro_a."), z.uuid())
+      .default({}),
     model: z.enum(MODEL_CHOICES).default("auto"),
     powersMotors: z.boolean().default(false),
     /** Required when the capture powers motors: the person confirmed the cautions. */

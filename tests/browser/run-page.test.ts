@@ -93,7 +93,7 @@ beforeAll(async () => {
     fileSize: Buffer.byteLength(csv),
     columnMapping: {},
     units: { magnetic: "uT", acceleration: "m/s2", rate: "rad/s", time: "s" },
-    sensorSlots: { mag0: board.id, mag1: mast.id },
+    sensorSlots: { compass_a: board.id, compass_b: mast.id },
     model: "auto",
     powersMotors: false,
   });
@@ -188,7 +188,7 @@ test("a technician reads the run, turns the view, exports and signs off", async 
         .split("\n")
         .map((r) => r.split(","));
       expect(rows[0]).toEqual(["slot", "label", "quantity", "row", "column", "value", "unit"]);
-      expect(Number(rows.find((r) => r[0] === "mag0" && r[2] === "offset" && r[3] === "x")![5])).toBeCloseTo(9, 0);
+      expect(Number(rows.find((r) => r[0] === "compass_a" && r[2] === "offset" && r[3] === "x")![5])).toBeCloseTo(9, 0);
     } else if (format === "c-header") {
       expect(text).toMatch(/static const float lox_mag0_offset\[3\] = \{ [-\d.ef, ]+ \};/);
       expect(text).toMatch(/lox_mag0_matrix\[3\]\[3\]/);

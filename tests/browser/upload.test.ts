@@ -157,7 +157,7 @@ beforeAll(async () => {
     placement: "external",
     mountingRotation: "none",
     units: "uT",
-    columnHints: ["mag0.x", "mag0.y", "mag0.z"],
+    columnHints: ["compass_a.x", "compass_a.y", "compass_a.z"],
   });
   ids.accel = await sensor({ kind: "accelerometer", label: "board", placement: "internal", mountingRotation: "none", units: "m/s2" });
   ids.gyro = await sensor({ kind: "gyroscope", label: "board", placement: "internal", mountingRotation: "none", units: "rad/s" });
@@ -198,11 +198,11 @@ describe("the upload page", () => {
     await page.getByLabel("Angular rate unit").selectOption("rad/s");
     await page.getByLabel("Time unit").selectOption("s");
 
-    // The vehicle's sensors fill the slots: mag0 by the mast module's column hints, the others by order.
+    // The vehicle's sensors fill the slots: compass_a by the mast module's column hints, the others by order.
     await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
-    await expect.poll(() => page.locator("#slot-mag0").inputValue()).toBe(ids.mastMag);
-    expect(await page.locator("#slot-accel0").inputValue()).toBe(ids.accel);
-    expect(await page.locator("#slot-gyro0").inputValue()).toBe(ids.gyro);
+    await expect.poll(() => page.locator("#slot-compass_a").inputValue()).toBe(ids.mastMag);
+    expect(await page.locator("#slot-accel_a").inputValue()).toBe(ids.accel);
+    expect(await page.locator("#slot-gyro_a").inputValue()).toBe(ids.gyro);
     expect(await page.getByLabel("Capture date").inputValue()).toBe(localToday());
     await page.getByLabel("Site", { exact: true }).selectOption(ids.site);
     await page.getByLabel("Title (optional)").fill(`Corrie tumble ${tag}`);
@@ -306,15 +306,15 @@ describe("the upload page", () => {
     await pickFile("corrie-smudged.csv", lines.join("\n"));
     await expect.poll(() => page.getByTestId("preview-delimiter").textContent()).toBe("comma");
     await page.getByLabel("Vehicle", { exact: true }).selectOption(ids.vehicle);
-    await expect.poll(() => page.locator("#slot-mag0").inputValue()).toBe(ids.mastMag);
+    await expect.poll(() => page.locator("#slot-compass_a").inputValue()).toBe(ids.mastMag);
     await page.getByRole("button", { name: "Upload and check" }).click();
 
     const failure = page.getByTestId("run-error");
     await failure.waitFor({ timeout: 60_000 });
     const text = (await failure.textContent()) ?? "";
-    expect(text).toContain('row 500, column "mag0.y"');
+    expect(text).toContain('row 500, column "compass_a.y"');
     expect(text).toContain("n/a");
-    expect(await failure.locator("dd").allTextContents()).toEqual(["500", "mag0.y"]);
+    expect(await failure.locator("dd").allTextContents()).toEqual(["500", "compass_a.y"]);
     expect(text).toContain("original file was kept");
     await page.screenshot({ path: artefactPath("upload-failed.png"), fullPage: true });
     expect(await page.getByTestId("processing-progress").getAttribute("aria-valuenow")).toBe("100");
@@ -333,15 +333,15 @@ describe("the upload page", () => {
     // A logger's own column names, with units in brackets.
     const names: Record<string, string> = {
       time: "Time (s)",
-      "mag0.x": "Compass X (uT)",
-      "mag0.y": "Compass Y (uT)",
-      "mag0.z": "Compass Z (uT)",
-      "accel0.x": "Acc X (m/s2)",
-      "accel0.y": "Acc Y (m/s2)",
-      "accel0.z": "Acc Z (m/s2)",
-      "gyro0.x": "Gyro X (rad/s)",
-      "gyro0.y": "Gyro Y (rad/s)",
-      "gyro0.z": "Gyro Z (rad/s)",
+      "compass_a.x": "Compass X (uT)",
+      "compass_a.y": "Compass Y (uT)",
+      "compass_a.z": "Compass Z (uT)",
+      "accel_a.x": "Acc X (m/s2)",
+      "accel_a.y": "Acc Y (m/s2)",
+      "accel_a.z": "Acc Z (m/s2)",
+      "gyro_a.x": "Gyro X (rad/s)",
+      "gyro_a.y": "Gyro Y (rad/s)",
+      "gyro_a.z": "Gyro Z (rad/s)",
       current: "Battery current (A)",
       throttle: "Throttle",
     };
@@ -360,10 +360,12 @@ describe("the upload page", () => {
     // A compass axis left out, then a field given twice: each is said where it is.
     const column = (name: string) => page.getByLabel(`What column “${name}” holds`);
     await column("Compass Y (uT)").selectOption("ignore");
-    await expect.poll(() => page.getByTestId("mapping-problems").textContent()).toContain("mag0 needs all three axes");
-    await column("Compass Y (uT)").selectOption("mag0.x");
-    await expect.poll(() => page.getByRole("alert").filter({ hasText: "mag0.x is already given to “Compass X (uT)”" }).count()).toBe(1);
-    await column("Compass Y (uT)").selectOption("mag0.y");
+    await expect.poll(() => page.getByTestId("mapping-problems").textContent()).toContain("compass_a needs all three axes");
+    await column("Compass Y (uT)").selectOption("compass_a.x");
+    await expect
+      .poll(() => page.getByRole("alert").filter({ hasText: "compass_a.x is already given to “Compass X (uT)”" }).count())
+      .toBe(1);
+    await column("Compass Y (uT)").selectOption("compass_a.y");
     expect(await page.getByTestId("mapping-problems").count()).toBe(0);
 
     // A current column is mapped, so the capture powers the motors: the cautions show and must be confirmed.
@@ -394,8 +396,8 @@ describe("the upload page", () => {
           fields: {
             capturedOn: "Give the capture date as YYYY-MM-DD.",
             "units.magnetic": "Magnetic unit not recognised.",
-            "columnMapping.Compass Z (uT)": "Map columns to a sensor axis such as mag0.x.",
-            "sensorSlots.mag0": "Slot mag0 needs a magnetometer.",
+            "columnMapping.Compass Z (uT)": "Map columns to a sensor axis such as compass_a.x.",
+            "sensorSlots.compass_a": "Slot compass_a needs a magnetometer.",
             safetyAcknowledged: "This capture powers motors: confirm the safety cautions first.",
             vehicleId: "Choose a vehicle.",
             somethingElse: "A field the form does not show.",
@@ -407,8 +409,8 @@ describe("the upload page", () => {
     await expect.poll(() => page.locator("#run-captured-on-error").textContent()).toBe("Give the capture date as YYYY-MM-DD.");
     await page.unrouteAll();
     expect(await page.locator("#unit-magnetic-error").textContent()).toBe("Magnetic unit not recognised.");
-    expect(await page.locator("#column-3-error").textContent()).toBe("Map columns to a sensor axis such as mag0.x.");
-    expect(await page.locator("#slot-mag0-error").textContent()).toBe("Slot mag0 needs a magnetometer.");
+    expect(await page.locator("#column-3-error").textContent()).toBe("Map columns to a sensor axis such as compass_a.x.");
+    expect(await page.locator("#slot-compass_a-error").textContent()).toBe("Slot compass_a needs a magnetometer.");
     expect(await page.locator("#run-safety-acknowledged-error").textContent()).toContain("confirm the safety cautions");
     expect(await page.locator("#run-vehicle-error").textContent()).toBe("Choose a vehicle.");
     expect(await page.getByTestId("form-error").textContent()).toContain("somethingElse: A field the form does not show.");
@@ -421,7 +423,7 @@ describe("the upload page", () => {
       safetyAcknowledged: true,
       model: "auto",
       units: { magnetic: "uT", acceleration: "m/s2", rate: "rad/s", time: "s", current: "A" },
-      sensorSlots: { mag0: ids.boardMag, accel0: ids.accel, gyro0: ids.gyro },
+      sensorSlots: { compass_a: ids.boardMag, accel_a: ids.accel, gyro_a: ids.gyro },
     });
     expect((sent as unknown as { columnMapping: Record<string, string> }).columnMapping).toEqual(
       Object.fromEntries(fields.map((f) => [names[f], f])),

@@ -38,9 +38,9 @@ describe("analyseCapture", () => {
     expect(analysis.verdict).toBe("pass");
     expect(analysis.diagnosis).toEqual([]);
     expect(analysis.magnetometers).toHaveLength(2);
-    const mag0 = analysis.magnetometers[0];
-    for (let k = 0; k < 3; k++) expect(mag0.offset![k]).toBeCloseTo(truth.magnetometers[0].loggedHardIronOffset[k], 0);
-    expect(mag0.coverage!.fraction).toBeGreaterThan(0.75);
+    const compass_a = analysis.magnetometers[0];
+    for (let k = 0; k < 3; k++) expect(compass_a.offset![k]).toBeCloseTo(truth.magnetometers[0].loggedHardIronOffset[k], 0);
+    expect(compass_a.coverage!.fraction).toBeGreaterThan(0.75);
     // The accelerometer fitted to WGS 84 normal gravity at the site (NIMA TR8350.2).
     expect(analysis.reference.gravitySource).toMatch(/WGS 84/);
     expect(analysis.accelerometer!.missingFaces).toEqual([]);
@@ -49,7 +49,7 @@ describe("analyseCapture", () => {
 
   test("yaw-only rotation fails coverage and the diagnosis says so first", () => {
     const { analysis } = analyse({ path: "yaw-only" });
-    expect(find(analysis.checks, "mag.coverage", "mag0").status).toBe("fail");
+    expect(find(analysis.checks, "mag.coverage", "compass_a").status).toBe("fail");
     expect(analysis.verdict).toBe("fail");
     expect(analysis.diagnosis[0].id).toBe("incomplete-rotation");
   });
@@ -72,7 +72,7 @@ describe("analyseCapture", () => {
         },
       ],
     });
-    const mounting = find(analysis.checks, "mag.mounting", "mag1");
+    const mounting = find(analysis.checks, "mag.mounting", "compass_b");
     expect(mounting.status).toBe("fail");
     expect(mounting.explanation).toContain(`as if rotated "${name}"`);
     expect(mounting.remedy).toContain(`"${name}"`);
@@ -98,9 +98,9 @@ describe("analyseCapture", () => {
           },
         ],
       },
-      { mountingRotations: { mag1: declared } },
+      { mountingRotations: { compass_b: declared } },
     );
-    expect(find(analysis.checks, "mag.mounting", "mag1").status).toBe(status);
+    expect(find(analysis.checks, "mag.mounting", "compass_b").status).toBe(status);
     expect(analysis.magnetometers[1].declaredRotation.name).toBe(declared);
   });
 
@@ -115,7 +115,7 @@ describe("analyseCapture", () => {
       magnetometers: [{ currentCoupling: [...coupling] }],
       currentTest: { maxAmps: 40 },
     });
-    const check = find(analysis.checks, "mag.current", "mag0");
+    const check = find(analysis.checks, "mag.current", "compass_a");
     expect(check.status).toBe(status);
     // The cautions travel with the check whenever motors were powered.
     expect(check.remedy).toMatch(/propellers off/);
@@ -139,7 +139,7 @@ describe("analyseCapture", () => {
         },
       ],
     });
-    const dip = find(analysis.checks, "mag.dip", "mag0");
+    const dip = find(analysis.checks, "mag.dip", "compass_a");
     expect(dip.status).toBe("fail");
     // Turned over, the vertical part of the field seems to point the wrong way: tens of degrees off.
     expect(Number(dip.measured)).toBeGreaterThan(20);
@@ -148,13 +148,13 @@ describe("analyseCapture", () => {
 
   test("turning only the upper half of the sphere leaves a gap that fails", () => {
     const { analysis } = analyse({ path: "upper-half" });
-    expect(find(analysis.checks, "mag.gap", "mag0").status).toBe("fail");
+    expect(find(analysis.checks, "mag.gap", "compass_a").status).toBe("fail");
     expect(analysis.diagnosis[0].id).toBe("incomplete-rotation");
   });
 
   test("steel a metre away disturbs the field while the vehicle moves: the residual fails, the site is blamed", () => {
     const { analysis } = analyse({ steel: { distanceM: 1 } });
-    expect(find(analysis.checks, "mag.residual", "mag0").status).toBe("fail");
+    expect(find(analysis.checks, "mag.residual", "compass_a").status).toBe("fail");
     expect(analysis.diagnosis[0].id).toBe("site");
   });
 
@@ -174,37 +174,37 @@ describe("analyseCapture", () => {
     },
   ])("$label fails its check and leads the diagnosis", ({ spec, id, cause }) => {
     const { analysis } = analyse(spec);
-    expect(find(analysis.checks, id, "mag0").status).toBe("fail");
+    expect(find(analysis.checks, id, "compass_a").status).toBe("fail");
     expect(analysis.diagnosis[0].id).toBe(cause);
   });
 
   test("a field stated in the wrong unit fails as implausible and the diagnosis blames units", () => {
     const { analysis } = analyse({}, { units: { magnetic: { kind: "magnetic", unit: "mG" } } });
-    expect(find(analysis.checks, "mag.field-plausible", "mag0").status).toBe("fail");
+    expect(find(analysis.checks, "mag.field-plausible", "compass_a").status).toBe("fail");
     expect(analysis.diagnosis[0].id).toBe("units");
   });
 
   test("without stated units the field-strength checks are skipped, not guessed", () => {
     const { analysis } = analyse({}, { units: {} });
-    expect(find(analysis.checks, "mag.field-vs-model", "mag0").status).toBe("skipped");
-    expect(find(analysis.checks, "mag.field-plausible", "mag0").status).toBe("skipped");
-    expect(analysis.notes.join(" ")).toMatch(/mag0: unit not stated/);
+    expect(find(analysis.checks, "mag.field-vs-model", "compass_a").status).toBe("skipped");
+    expect(find(analysis.checks, "mag.field-plausible", "compass_a").status).toBe("skipped");
+    expect(analysis.notes.join(" ")).toMatch(/compass_a: unit not stated/);
   });
 
   test("without a site the model checks are skipped and standard gravity is used (CGPM 1901)", () => {
     const simulated = simulateCapture({ seed: 3, holds: { faces: SIX } });
     const analysis = analyseCapture(simulated.table, { units: microtesla, bootstrap: false });
     expect(analysis.reference.gravityMps2).toBe(9.80665);
-    expect(find(analysis.checks, "mag.dip", "mag0").status).toBe("skipped");
-    expect(find(analysis.checks, "mag.field-vs-model", "mag0").status).toBe("skipped");
+    expect(find(analysis.checks, "mag.dip", "compass_a").status).toBe("skipped");
+    expect(find(analysis.checks, "mag.field-vs-model", "compass_a").status).toBe("skipped");
   });
 
   test("the input table is not modified", () => {
     const simulated = simulateCapture({ seed: 3, holds: { faces: SIX } });
-    const before = simulated.table.columns["accel0.z"].slice();
+    const before = simulated.table.columns["accel_a.z"].slice();
     const beforeTime = simulated.table.columns.time.slice();
     analyseCapture(simulated.table, { units: { ...microtesla, acceleration: { kind: "acceleration", unit: "g" } }, bootstrap: false });
-    expect(simulated.table.columns["accel0.z"]).toEqual(before);
+    expect(simulated.table.columns["accel_a.z"]).toEqual(before);
     expect(simulated.table.columns.time).toEqual(beforeTime);
   });
 
@@ -239,12 +239,12 @@ describe("analyseCapture: accelerometer from a simulated recording", () => {
     { label: "20° off square fails", tiltDeg: 20, status: "fail" },
   ])("a tilted pose is flagged: $label", ({ tiltDeg, status }) => {
     const { analysis } = analyse({ holds: { faces: SIX, tiltDeg } });
-    expect(find(analysis.checks, "accel.tilt", "accel0").status).toBe(status);
+    expect(find(analysis.checks, "accel.tilt", "accel_a").status).toBe(status);
   });
 
   test("a wobbly pose is flagged", () => {
     const { analysis } = analyse({ holds: { faces: SIX, wobbleDeg: 1 } });
-    const wobble = find(analysis.checks, "accel.wobble", "accel0");
+    const wobble = find(analysis.checks, "accel.wobble", "accel_a");
     expect(["warn", "fail"]).toContain(wobble.status);
     expect(analysis.diagnosis.map((d) => d.id)).toContain("accel-holds-unsteady");
   });
@@ -252,10 +252,10 @@ describe("analyseCapture: accelerometer from a simulated recording", () => {
   test("missing faces are named", () => {
     const { analysis } = analyse({ holds: { faces: ["+z", "-z", "+x", "+y"] } });
     expect(analysis.accelerometer!.missingFaces).toEqual(["-x", "-y"]);
-    const faces = find(analysis.checks, "accel.faces", "accel0");
+    const faces = find(analysis.checks, "accel.faces", "accel_a");
     expect(faces.status).toBe("fail");
     expect(faces.explanation).toMatch(/nose up/);
     expect(faces.explanation).toMatch(/on its left side/);
-    expect(find(analysis.checks, "accel.fit", "accel0").status).toBe("fail");
+    expect(find(analysis.checks, "accel.fit", "accel_a").status).toBe("fail");
   });
 });

@@ -12,7 +12,7 @@ function setup(noise: number, seed: number) {
     gyro: false,
     magnetometers: [{ hardIronOffset: [12, -7, 30], softIron: "mild", noise }],
   });
-  const series = { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
+  const series = { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] };
   const fit = fitMagModel(series, "full");
   if (!fit.ok) throw new Error(fit.detail);
   const estimate = {

@@ -9,7 +9,7 @@ import { angleBetweenDeg, maxAbsDiff3 } from "@/geometry/vector";
 
 function capture(spec: CaptureSpec) {
   const { table, truth } = simulateCapture({ accelerometer: false, gyro: false, pathSeconds: 40, ...spec });
-  const field: Vec3Series = { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
+  const field: Vec3Series = { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] };
   return { field, truth: truth.magnetometers[0] };
 }
 

@@ -8,15 +8,15 @@ function table(accelScale: number, gyroScale: number, timeScale = 1000): ColumnT
   const col = (f: (i: number) => number) => Float64Array.from({ length: n }, (_, i) => f(i));
   const columns = {
     time: col((i) => (5 + i * 0.01) * timeScale),
-    "mag0.x": col(() => 200),
-    "mag0.y": col(() => 0),
-    "mag0.z": col(() => 450),
-    "accel0.x": col(() => 0),
-    "accel0.y": col(() => 0),
-    "accel0.z": col(() => -accelScale),
-    "gyro0.x": col((i) => gyroScale * Math.sin(i / 10)),
-    "gyro0.y": col(() => 0),
-    "gyro0.z": col(() => 0),
+    "compass_a.x": col(() => 200),
+    "compass_a.y": col(() => 0),
+    "compass_a.z": col(() => 450),
+    "accel_a.x": col(() => 0),
+    "accel_a.y": col(() => 0),
+    "accel_a.z": col(() => -accelScale),
+    "gyro_a.x": col((i) => gyroScale * Math.sin(i / 10)),
+    "gyro_a.y": col(() => 0),
+    "gyro_a.z": col(() => 0),
   };
   return { fields: Object.keys(columns), columns, length: n };
 }
@@ -30,16 +30,16 @@ describe("resolveCaptureUnits", () => {
     { label: "accelerometer in counts", accel: 4096, unit: "counts" },
   ])("guesses $label", ({ accel, unit }) => {
     const units = resolveCaptureUnits(table(accel, 3));
-    expect(units.accel0.spec.unit).toBe(unit);
-    expect(units.accel0.how).toBe("guessed");
-    expect(units.accel0.factor * accel).toBeCloseTo(accel === 9.81 ? 9.81 : 9.80665, 6);
+    expect(units.accel_a.spec.unit).toBe(unit);
+    expect(units.accel_a.how).toBe("guessed");
+    expect(units.accel_a.factor * accel).toBeCloseTo(accel === 9.81 ? 9.81 : 9.80665, 6);
   });
 
   test.each([
     { label: "rates up to 3 read as rad/s", gyro: 3, unit: "rad/s" },
     { label: "rates up to 200 read as deg/s", gyro: 200, unit: "deg/s" },
   ])("gyro: $label", ({ gyro, unit }) => {
-    expect(resolveCaptureUnits(table(9.8, gyro)).gyro0.spec.unit).toBe(unit);
+    expect(resolveCaptureUnits(table(9.8, gyro)).gyro_a.spec.unit).toBe(unit);
   });
 
   test("time step of 10 reads as milliseconds", () => {
@@ -48,7 +48,7 @@ describe("resolveCaptureUnits", () => {
 
   test("a magnetometer's unit is never guessed", () => {
     const units = resolveCaptureUnits(table(9.8, 1));
-    expect(units.mag0).toMatchObject({ how: "unknown", physical: false, factor: 1 });
+    expect(units.compass_a).toMatchObject({ how: "unknown", physical: false, factor: 1 });
   });
 
   test("stated units win over column names, which win over guesses", () => {
@@ -56,12 +56,16 @@ describe("resolveCaptureUnits", () => {
     const hinted = resolveCaptureUnits(
       t,
       {},
-      { "mag0.x": { kind: "magnetic", unit: "mG" }, "accel0.x": { kind: "acceleration", unit: "m/s2" } },
+      { "compass_a.x": { kind: "magnetic", unit: "mG" }, "accel_a.x": { kind: "acceleration", unit: "m/s2" } },
     );
-    expect(hinted.mag0).toMatchObject({ how: "column name", factor: 0.1, physical: true });
-    expect(hinted.accel0.spec.unit).toBe("m/s2");
-    const stated = resolveCaptureUnits(t, { magnetic: { kind: "magnetic", unit: "nT" } }, { "mag0.x": { kind: "magnetic", unit: "mG" } });
-    expect(stated.mag0).toMatchObject({ how: "stated", factor: 0.001 });
+    expect(hinted.compass_a).toMatchObject({ how: "column name", factor: 0.1, physical: true });
+    expect(hinted.accel_a.spec.unit).toBe("m/s2");
+    const stated = resolveCaptureUnits(
+      t,
+      { magnetic: { kind: "magnetic", unit: "nT" } },
+      { "compass_a.x": { kind: "magnetic", unit: "mG" } },
+    );
+    expect(stated.compass_a).toMatchObject({ how: "stated", factor: 0.001 });
   });
 });
 
@@ -70,14 +74,14 @@ describe("convertCapture", () => {
     const t = table(1, 200);
     const units = resolveCaptureUnits(t, { magnetic: { kind: "magnetic", unit: "mG" } });
     const out = convertCapture(t, units);
-    expect(out.columns["mag0.x"][0]).toBeCloseTo(20, 12);
-    expect(out.columns["accel0.z"][0]).toBeCloseTo(-9.80665, 12);
-    expect(out.columns["gyro0.x"][10]).toBeCloseTo((200 * Math.sin(1) * Math.PI) / 180, 12);
+    expect(out.columns["compass_a.x"][0]).toBeCloseTo(20, 12);
+    expect(out.columns["accel_a.z"][0]).toBeCloseTo(-9.80665, 12);
+    expect(out.columns["gyro_a.x"][10]).toBeCloseTo((200 * Math.sin(1) * Math.PI) / 180, 12);
     expect(out.columns.time[0]).toBe(0);
     expect(out.columns.time[1]).toBeCloseTo(0.01, 12);
-    expect(t.columns["accel0.z"][0]).toBe(-1); // input untouched
+    expect(t.columns["accel_a.z"][0]).toBe(-1); // input untouched
     const inSeconds = table(9.8, 1, 1);
     const same = convertCapture(inSeconds, resolveCaptureUnits(inSeconds));
-    expect(same.columns["accel0.x"]).toBe(inSeconds.columns["accel0.x"]);
+    expect(same.columns["accel_a.x"]).toBe(inSeconds.columns["accel_a.x"]);
   });
 });

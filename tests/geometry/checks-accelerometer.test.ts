@@ -9,7 +9,7 @@ const DEG = Math.PI / 180;
 describe("facesCheck", () => {
   test("names the missing faces in plain words", () => {
     const faces: FaceSummary = { poseByFace: {}, missingFaces: ["-x", "+y"], repeatedFaces: [] };
-    const check = facesCheck("accel0", faces, thresholds);
+    const check = facesCheck("accel_a", faces, thresholds);
     expect(check.status).toBe("fail");
     expect(check.measured).toBe(2);
     expect(check.explanation).toBe("Missing: nose up (-x down), on its right side (+y down).");
@@ -23,7 +23,7 @@ describe("wobbleCheck", () => {
     { label: "one shaky hold", wobble: 0.9, status: "warn" },
     { label: "one very shaky hold", wobble: 2.5, status: "fail" },
   ])("$label", ({ wobble, status }) => {
-    const check = wobbleCheck("accel0", [pose("+z", 0.1), pose("-y", wobble)], thresholds);
+    const check = wobbleCheck("accel_a", [pose("+z", 0.1), pose("-y", wobble)], thresholds);
     expect(check.status).toBe(status);
     if (status !== "pass") expect(check.explanation).toContain("on its left side");
   });
@@ -36,7 +36,7 @@ describe("gyroscopeChecks", () => {
     { label: "a noisy, drifting gyro", bias: 1, noise: 2, drift: 3, statuses: ["pass", "fail", "fail"] },
   ])("$label (°/s, from memory and common practice limits)", ({ bias, noise, drift, statuses }) => {
     const checks = gyroscopeChecks(
-      "gyro0",
+      "gyro_a",
       {
         ok: true,
         biasRadPerS: [bias * DEG, 0, 0],
@@ -54,7 +54,7 @@ describe("gyroscopeChecks", () => {
   });
 
   test("no still period: bias and noise skipped", () => {
-    const checks = gyroscopeChecks("gyro0", { ok: false, reason: "no-still-periods", detail: "nothing still" }, thresholds);
+    const checks = gyroscopeChecks("gyro_a", { ok: false, reason: "no-still-periods", detail: "nothing still" }, thresholds);
     expect(checks.map((c) => c.status)).toEqual(["skipped", "skipped"]);
   });
 });

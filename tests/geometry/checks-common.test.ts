@@ -13,7 +13,7 @@ describe("gradedCheck", () => {
     const check = gradedCheck(thresholds, {
       id: "mag.residual",
       title: "Fit residual",
-      sensor: "mag0",
+      sensor: "compass_a",
       measured,
       explain: (s) => ({ explanation: `it is ${s}`, remedy: s === "pass" ? null : "do something" }),
     });
@@ -21,7 +21,7 @@ describe("gradedCheck", () => {
       id: "mag.residual",
       title: "Fit residual",
       status,
-      sensor: "mag0",
+      sensor: "compass_a",
       measured: shown,
       threshold: "warn above 2, fail above 5 % of field",
       unit: "% of field",
@@ -46,14 +46,14 @@ describe("gradedCheck", () => {
 
 describe("skippedCheck", () => {
   test("keeps the limits of a known id and gives the reason", () => {
-    const check = skippedCheck(thresholds, "mag.dip", "Inclination (dip)", "mag1", "no site", "give a site");
+    const check = skippedCheck(thresholds, "mag.dip", "Inclination (dip)", "compass_b", "no site", "give a site");
     expect(check).toMatchObject({
       status: "skipped",
       measured: null,
       unit: "° from WMM",
       explanation: "no site",
       remedy: "give a site",
-      sensor: "mag1",
+      sensor: "compass_b",
     });
   });
 

@@ -63,7 +63,7 @@ describe("softIronRatio", () => {
 
 describe("fieldVsModelCheck", () => {
   test("compares with the WMM field at the site", () => {
-    const check = fieldVsModelCheck("mag0", calibration(reference.fieldStrengthMicrotesla * 1.15), true, reference, thresholds);
+    const check = fieldVsModelCheck("compass_a", calibration(reference.fieldStrengthMicrotesla * 1.15), true, reference, thresholds);
     expect(check.status).toBe("warn");
     expect(check.measured).toBeCloseTo(15, 1);
     expect(check.explanation).toContain("WMM-2025");
@@ -73,14 +73,14 @@ describe("fieldVsModelCheck", () => {
     { label: "units unknown", physical: false, ref: reference, reason: /units are not known/ },
     { label: "no site", physical: true, ref: null, reason: /No site/ },
   ])("skipped when $label", ({ physical, ref, reason }) => {
-    const check = fieldVsModelCheck("mag0", calibration(50), physical, ref, thresholds);
+    const check = fieldVsModelCheck("compass_a", calibration(50), physical, ref, thresholds);
     expect(check.status).toBe("skipped");
     expect(check.explanation).toMatch(reason);
   });
 
   test("a date outside the model says so", () => {
     const old = magneticReference(site, new Date("2032-01-01T00:00:00Z"));
-    expect(fieldVsModelCheck("mag0", calibration(old.fieldStrengthMicrotesla), true, old, thresholds).explanation).toMatch(
+    expect(fieldVsModelCheck("compass_a", calibration(old.fieldStrengthMicrotesla), true, old, thresholds).explanation).toMatch(
       /outside the model's validity/,
     );
   });
@@ -92,14 +92,14 @@ describe("fieldPlausibleCheck", () => {
     { label: "the South Atlantic low", strength: 23, status: "pass" },
     { label: "a field stated in mG read as µT", strength: 480, status: "fail" },
   ])("$label", ({ strength, status }) => {
-    expect(fieldPlausibleCheck("mag0", calibration(strength), true, thresholds).status).toBe(status);
+    expect(fieldPlausibleCheck("compass_a", calibration(strength), true, thresholds).status).toBe(status);
   });
 });
 
 describe("fitCheck", () => {
   test("a refusal fails with its reason and advice", () => {
-    const check = fitCheck("mag1", { ok: false, reason: "planar", detail: "the samples lie near a plane" });
-    expect(check).toMatchObject({ status: "fail", measured: "planar", sensor: "mag1" });
+    const check = fitCheck("compass_b", { ok: false, reason: "planar", detail: "the samples lie near a plane" });
+    expect(check).toMatchObject({ status: "fail", measured: "planar", sensor: "compass_b" });
     expect(check.explanation).toContain("the samples lie near a plane");
     expect(check.remedy).toMatch(/upside down/);
   });
@@ -112,12 +112,12 @@ describe("dipCheck", () => {
     { label: "4° off", offset: 4, status: "warn" },
     { label: "10° off", offset: 10, status: "fail" },
   ])("$label", ({ offset, status }) => {
-    expect(dipCheck("mag0", dip(reference.inclinationDeg + offset), reference, thresholds).status).toBe(status);
+    expect(dipCheck("compass_a", dip(reference.inclinationDeg + offset), reference, thresholds).status).toBe(status);
   });
 
   test("skipped without a site or without a measurement", () => {
-    expect(dipCheck("mag0", dip(70), null, thresholds).status).toBe("skipped");
-    expect(dipCheck("mag0", null, reference, thresholds, "no accelerometer").explanation).toBe("no accelerometer");
+    expect(dipCheck("compass_a", dip(70), null, thresholds).status).toBe("skipped");
+    expect(dipCheck("compass_a", null, reference, thresholds, "no accelerometer").explanation).toBe("no accelerometer");
   });
 });
 
@@ -130,8 +130,8 @@ describe("mountingCheck", () => {
 
   test("a compass that behaves as yaw 90 but is declared none fails and names both", () => {
     const check = mountingCheck(
-      "mag1",
-      { reference: "mag0", expected: identity, expectedName: "none", result: result(yaw90.matrix, yaw90) },
+      "compass_b",
+      { reference: "compass_a", expected: identity, expectedName: "none", result: result(yaw90.matrix, yaw90) },
       thresholds,
     );
     expect(check.status).toBe("fail");
@@ -144,8 +144,8 @@ describe("mountingCheck", () => {
   test("as declared: pass", () => {
     expect(
       mountingCheck(
-        "mag1",
-        { reference: "mag0", expected: yaw90.matrix, expectedName: "yaw 90", result: result(yaw90.matrix, yaw90) },
+        "compass_b",
+        { reference: "compass_a", expected: yaw90.matrix, expectedName: "yaw 90", result: result(yaw90.matrix, yaw90) },
         thresholds,
       ).status,
     ).toBe("pass");
@@ -154,8 +154,8 @@ describe("mountingCheck", () => {
   test("undetermined rotation: skipped", () => {
     expect(
       mountingCheck(
-        "mag1",
-        { reference: "mag0", expected: identity, expectedName: "none", result: result(identity, none, false) },
+        "compass_b",
+        { reference: "compass_a", expected: identity, expectedName: "none", result: result(identity, none, false) },
         thresholds,
       ).status,
     ).toBe("skipped");
@@ -180,7 +180,7 @@ describe("currentCouplingCheck", () => {
     { label: "8%", percent: 8, status: "warn" },
     { label: "30%", percent: 30, status: "fail" },
   ])("$label of the field → $status, always with the safety cautions", ({ percent, status }) => {
-    const check = currentCouplingCheck("mag0", coupling(percent), thresholds);
+    const check = currentCouplingCheck("compass_a", coupling(percent), thresholds);
     expect(check.status).toBe(status);
     for (const caution of [
       /propellers off/,

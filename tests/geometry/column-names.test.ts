@@ -4,25 +4,25 @@ import { isCanonicalField, kindOfField, parseColumnMap, recogniseColumns, sensor
 // Spellings named in the issue and common in logger exports (common practice).
 describe("recogniseColumns", () => {
   test.each([
-    { label: "mx", header: "mx", field: "mag0.x" },
-    { label: "mag_x", header: "mag_x", field: "mag0.x" },
-    { label: "magX (camelCase)", header: "magX", field: "mag0.x" },
-    { label: "Mag X (uT)", header: "Mag X (uT)", field: "mag0.x", unit: "uT" },
-    { label: "MAG_Y upper case", header: "MAG_Y", field: "mag0.y" },
-    { label: "compass_z", header: "compass_z", field: "mag0.z" },
-    { label: "magnetometer.x", header: "magnetometer.x", field: "mag0.x" },
-    { label: "accel_x", header: "accel_x", field: "accel0.x" },
-    { label: "ax", header: "ax", field: "accel0.x" },
-    { label: "acc_x", header: "acc_x", field: "accel0.x" },
-    { label: "AccY", header: "AccY", field: "accel0.y" },
-    { label: "accel_z_g (trailing unit)", header: "accel_z_g", field: "accel0.z", unit: "g" },
-    { label: "Accel Z [m/s^2]", header: "Accel Z [m/s^2]", field: "accel0.z", unit: "m/s2" },
-    { label: "gyro_x", header: "gyro_x", field: "gyro0.x" },
-    { label: "gx", header: "gx", field: "gyro0.x" },
-    { label: "gyr_z_dps", header: "gyr_z_dps", field: "gyro0.z", unit: "deg/s" },
-    { label: "Gyro Y (rad/s)", header: "Gyro Y (rad/s)", field: "gyro0.y", unit: "rad/s" },
-    { label: "mag_x_mg is milligauss", header: "mag_x_mg", field: "mag0.x", unit: "mG" },
-    { label: "acc_x (mg) is milli-g", header: "acc_x (mg)", field: "accel0.x", unit: "mg" },
+    { label: "mx", header: "mx", field: "compass_a.x" },
+    { label: "mag_x", header: "mag_x", field: "compass_a.x" },
+    { label: "magX (camelCase)", header: "magX", field: "compass_a.x" },
+    { label: "Mag X (uT)", header: "Mag X (uT)", field: "compass_a.x", unit: "uT" },
+    { label: "MAG_Y upper case", header: "MAG_Y", field: "compass_a.y" },
+    { label: "compass_z", header: "compass_z", field: "compass_a.z" },
+    { label: "magnetometer.x", header: "magnetometer.x", field: "compass_a.x" },
+    { label: "accel_x", header: "accel_x", field: "accel_a.x" },
+    { label: "ax", header: "ax", field: "accel_a.x" },
+    { label: "acc_x", header: "acc_x", field: "accel_a.x" },
+    { label: "AccY", header: "AccY", field: "accel_a.y" },
+    { label: "accel_z_g (trailing unit)", header: "accel_z_g", field: "accel_a.z", unit: "g" },
+    { label: "Accel Z [m/s^2]", header: "Accel Z [m/s^2]", field: "accel_a.z", unit: "m/s2" },
+    { label: "gyro_x", header: "gyro_x", field: "gyro_a.x" },
+    { label: "gx", header: "gx", field: "gyro_a.x" },
+    { label: "gyr_z_dps", header: "gyr_z_dps", field: "gyro_a.z", unit: "deg/s" },
+    { label: "Gyro Y (rad/s)", header: "Gyro Y (rad/s)", field: "gyro_a.y", unit: "rad/s" },
+    { label: "mag_x_mg is milligauss", header: "mag_x_mg", field: "compass_a.x", unit: "mG" },
+    { label: "acc_x (mg) is milli-g", header: "acc_x (mg)", field: "accel_a.x", unit: "mg" },
     { label: "current", header: "current", field: "current" },
     { label: "curr", header: "curr", field: "current" },
     { label: "amps", header: "amps", field: "current" },
@@ -37,7 +37,7 @@ describe("recogniseColumns", () => {
     { label: "time_us", header: "time_us", field: "time", unit: "us" },
     { label: "TimeUS", header: "TimeUS", field: "time", unit: "us" },
     { label: "Time (s)", header: "Time (s)", field: "time", unit: "s" },
-    { label: "canonical mag1.z", header: "mag1.z", field: "mag1.z" },
+    { label: "canonical compass_b.z", header: "compass_b.z", field: "compass_b.z" },
   ])("$label → $field", ({ header, field, unit }) => {
     const result = recogniseColumns([header]);
     expect(result.columns[0].field).toBe(field);
@@ -56,23 +56,23 @@ describe("recogniseColumns", () => {
   });
 
   test.each([
-    { label: "unnumbered then 2", headers: ["mag_x", "mag2_x"], fields: ["mag0.x", "mag1.x"] },
-    { label: "compass1 and compass2", headers: ["compass2_x", "compass1_x"], fields: ["mag1.x", "mag0.x"] },
-    { label: "m2x and mx", headers: ["m2x", "mx"], fields: ["mag1.x", "mag0.x"] },
-    { label: "mag0 and mag1", headers: ["mag0_y", "mag1_y"], fields: ["mag0.y", "mag1.y"] },
-    { label: "numbered after the axis", headers: ["accX1", "accX2"], fields: ["accel0.x", "accel1.x"] },
-    { label: "families numbered apart", headers: ["mag2_x", "acc2_x"], fields: ["mag0.x", "accel0.x"] },
+    { label: "unnumbered then 2", headers: ["mag_x", "mag2_x"], fields: ["compass_a.x", "compass_b.x"] },
+    { label: "compass1 and compass2", headers: ["compass2_x", "compass1_x"], fields: ["compass_b.x", "compass_a.x"] },
+    { label: "m2x and mx", headers: ["m2x", "mx"], fields: ["compass_b.x", "compass_a.x"] },
+    { label: "compass_a and compass_b", headers: ["mag0_y", "mag1_y"], fields: ["compass_a.y", "compass_b.y"] },
+    { label: "numbered after the axis", headers: ["accX1", "accX2"], fields: ["accel_a.x", "accel_b.x"] },
+    { label: "families numbered apart", headers: ["mag2_x", "acc2_x"], fields: ["compass_a.x", "accel_a.x"] },
   ])("numbering: $label", ({ headers, fields }) => {
     const result = recogniseColumns(headers);
     expect(result.columns.map((c) => c.field)).toEqual(fields);
   });
 
   test("the map overrides recognition and takes the field from a recognised column", () => {
-    const result = recogniseColumns(["Field A (uT)", "mx", "clock"], { "field a (uT)": "mag0.x", clock: "time" });
-    expect(result.columns.map((c) => c.field)).toEqual(["mag0.x", null, "time"]);
+    const result = recogniseColumns(["Field A (uT)", "mx", "clock"], { "field a (uT)": "compass_a.x", clock: "time" });
+    expect(result.columns.map((c) => c.field)).toEqual(["compass_a.x", null, "time"]);
     expect(result.columns[0].unitHint?.unit).toBe("uT");
-    expect(result.conflicts).toEqual([{ field: "mag0.x", headers: ["Field A (uT)", "mx"] }]);
-    expect(result.fieldIndex).toEqual({ "mag0.x": 0, time: 2 });
+    expect(result.conflicts).toEqual([{ field: "compass_a.x", headers: ["Field A (uT)", "mx"] }]);
+    expect(result.fieldIndex).toEqual({ "compass_a.x": 0, time: 2 });
   });
 
   test("the map can drop a column", () => {
@@ -88,19 +88,19 @@ describe("recogniseColumns", () => {
 
   test("incomplete sensors name the missing axes", () => {
     const result = recogniseColumns(["time", "mx", "my", "mz", "ax", "az"]);
-    expect(result.incompleteSensors).toEqual([{ sensor: "accel0", missing: ["accel0.y"] }]);
+    expect(result.incompleteSensors).toEqual([{ sensor: "accel_a", missing: ["accel_a.y"] }]);
   });
 
   test("unit hints are keyed by field", () => {
     const result = recogniseColumns(["time_ms", "mag_x (nT)"]);
     expect(result.unitHints.time.unit).toBe("ms");
-    expect(result.unitHints["mag0.x"].unit).toBe("nT");
+    expect(result.unitHints["compass_a.x"].unit).toBe("nT");
   });
 });
 
 describe("parseColumnMap", () => {
   test.each([
-    { label: "two pairs", text: "a=mag0.x,b=time", map: { a: "mag0.x", b: "time" } },
+    { label: "two pairs", text: "a=compass_a.x,b=time", map: { a: "compass_a.x", b: "time" } },
     { label: "spaces and ignore", text: " Col B = ignore , c=current", map: { "Col B": "ignore", c: "current" } },
     { label: "empty", text: "", map: {} },
   ])("$label", ({ text, map }) => {
@@ -117,11 +117,13 @@ describe("parseColumnMap", () => {
 
 describe("isCanonicalField", () => {
   test.each([
-    { name: "mag0.x", ok: true },
-    { name: "gyro12.z", ok: true },
+    { name: "compass_a.x", ok: true },
+    { name: "gyro_j.z", ok: true },
+    { name: "gyro12.z", ok: false },
+    { name: "mag0.x", ok: false },
     { name: "throttle", ok: true },
     { name: "mag.x", ok: false },
-    { name: "mag0.w", ok: false },
+    { name: "compass_a.w", ok: false },
   ])("$name → $ok", ({ name, ok }) => {
     expect(isCanonicalField(name)).toBe(ok);
   });
@@ -129,9 +131,9 @@ describe("isCanonicalField", () => {
 
 describe("kindOfField", () => {
   test.each([
-    { field: "mag1.y", kind: "magnetic" },
-    { field: "accel0.x", kind: "acceleration" },
-    { field: "gyro0.z", kind: "rate" },
+    { field: "compass_b.y", kind: "magnetic" },
+    { field: "accel_a.x", kind: "acceleration" },
+    { field: "gyro_a.z", kind: "rate" },
     { field: "time", kind: "time" },
     { field: "current", kind: "current" },
     { field: "throttle", kind: null },
@@ -141,11 +143,11 @@ describe("kindOfField", () => {
 });
 
 describe("sensorsInFields", () => {
-  test("lists sensors by family in number order", () => {
-    expect(sensorsInFields(["mag1.x", "mag0.x", "accel0.y", "gyro10.z", "gyro2.z", "time"])).toEqual({
-      mag: ["mag0", "mag1"],
-      accel: ["accel0"],
-      gyro: ["gyro2", "gyro10"],
+  test("lists sensors by family in letter order", () => {
+    expect(sensorsInFields(["compass_b.x", "compass_a.x", "accel_a.y", "gyro_j.z", "gyro_c.z", "time"])).toEqual({
+      mag: ["compass_a", "compass_b"],
+      accel: ["accel_a"],
+      gyro: ["gyro_c", "gyro_j"],
     });
   });
 });

@@ -12,7 +12,7 @@ function motorRun(coupling: [number, number, number], profile: "ramp" | "steps",
     magnetometers: [{ currentCoupling: coupling, noise: 0.2 }],
     currentTest: { maxAmps: 40, seconds: 30, profile },
   });
-  return { table, truth, field: { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] } };
+  return { table, truth, field: { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] } };
 }
 
 describe("currentCoupling", () => {

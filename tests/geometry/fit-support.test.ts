@@ -5,9 +5,9 @@ import { createRandom } from "@/geometry/random";
 import { simulateCapture } from "@/geometry/simulator";
 import type { Vec3Series } from "@/geometry/types";
 
-function mag0(spec: CaptureSpec): Vec3Series {
+function compass_a(spec: CaptureSpec): Vec3Series {
   const { table } = simulateCapture({ accelerometer: false, gyro: false, pathSeconds: 30, ...spec });
-  return { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
+  return { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] };
 }
 
 /** Directions within a cap of half-angle capDeg about +z, radius 50, offset (10, 20, 30): invented test data. */
@@ -30,7 +30,7 @@ const all = (s: Vec3Series) => new Uint8Array(s.x.length).fill(1);
 
 describe("checkFitSupport", () => {
   test.each([
-    { label: "yaw-only turn (a ring) → planar", series: () => mag0({ path: "yaw-only" }), reason: "planar" },
+    { label: "yaw-only turn (a ring) → planar", series: () => compass_a({ path: "yaw-only" }), reason: "planar" },
     { label: "thin cap of 25° → small-cap", series: () => capSamples(25), reason: "small-cap" },
     { label: "cap of 45° → small-cap", series: () => capSamples(45), reason: "small-cap" },
   ])("refuses $label", ({ series, reason }) => {
@@ -43,12 +43,12 @@ describe("checkFitSupport", () => {
   });
 
   test.each([
-    { label: "full tumble", series: () => mag0({ path: "full" }) },
+    { label: "full tumble", series: () => compass_a({ path: "full" }) },
     {
       label: "strong soft iron, full tumble",
-      series: () => mag0({ path: "full", magnetometers: [{ softIron: "strong", hardIronOffset: [40, 0, -20] }] }),
+      series: () => compass_a({ path: "full", magnetometers: [{ softIron: "strong", hardIronOffset: [40, 0, -20] }] }),
     },
-    { label: "upper half only (a hemisphere)", series: () => mag0({ path: "upper-half" }) },
+    { label: "upper half only (a hemisphere)", series: () => compass_a({ path: "upper-half" }) },
     { label: "cap of 120°", series: () => capSamples(120) },
   ])("accepts $label", ({ series }) => {
     const s = series();
@@ -60,7 +60,7 @@ describe("checkFitSupport", () => {
   });
 
   test("too few samples, counting only the eligible ones", () => {
-    const s = mag0({ path: "full" });
+    const s = compass_a({ path: "full" });
     const eligible = new Uint8Array(s.x.length);
     eligible.fill(1, 0, 50);
     const result = checkFitSupport(s, eligible, 90);

@@ -18,12 +18,20 @@ describe("scenarioCaptureSpec", () => {
   });
 
   test("a second compass and a motor run add their columns", () => {
-    const table = capture({ secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [1, 2, 3] }, currentCoupling: { perAmpMicrotesla: [0.2, 0, 0], maxAmps: 30 } });
-    expect(table.fields).toEqual(expect.arrayContaining(["mag1.x", "current", "throttle"]));
+    const table = capture({
+      secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [1, 2, 3] },
+      currentCoupling: { perAmpMicrotesla: [0.2, 0, 0], maxAmps: 30 },
+    });
+    expect(table.fields).toEqual(expect.arrayContaining(["compass_b.x", "current", "throttle"]));
   });
 
   test("an unknown rotation is refused by name", () => {
-    expect(() => scenarioCaptureSpec({ ...DEFAULT_SCENARIO, secondCompass: { mountingRotation: "yaw 91", declaredRotation: "none", hardIronOffset: [0, 0, 0] } })).toThrow(/yaw 91/);
+    expect(() =>
+      scenarioCaptureSpec({
+        ...DEFAULT_SCENARIO,
+        secondCompass: { mountingRotation: "yaw 91", declaredRotation: "none", hardIronOffset: [0, 0, 0] },
+      }),
+    ).toThrow(/yaw 91/);
   });
 });
 
@@ -33,7 +41,7 @@ describe("liveSnapshot", () => {
   test("slices without copying", () => {
     const part = sliceTable(table, 100);
     expect(part.length).toBe(100);
-    expect(part.columns["mag0.x"].buffer).toBe(table.columns["mag0.x"].buffer);
+    expect(part.columns["compass_a.x"].buffer).toBe(table.columns["compass_a.x"].buffer);
   });
 
   test("too few samples: points only, no verdict", () => {

@@ -26,7 +26,7 @@ describe("analyseMagnetometers", () => {
   const { table } = simulateCapture({ seed: 8, accelerometer: false, gyro: false, magnetometers: [{}, {}] });
   const base = {
     capture: table,
-    sensors: ["mag0", "mag1"],
+    sensors: ["compass_a", "compass_b"],
     units: resolveCaptureUnits(table, { magnetic: { kind: "magnetic", unit: "uT" } }),
     reference: null,
     stillPeriods: [],
@@ -37,18 +37,18 @@ describe("analyseMagnetometers", () => {
   };
 
   test("the first compass is the reference; the second is compared with it", () => {
-    const [mag0, mag1] = analyseMagnetometers({ ...base, mountingRotations: {}, notes: [] });
-    expect(mag0.mountingComparison).toBeNull();
-    expect(mag1.mountingComparison?.reference).toBe("mag0");
-    expect(mag1.mountingComparison?.fromDeclaredDeg).toBeLessThan(2);
-    expect(mag0.declaredRotation.name).toBe("none");
+    const [compass_a, compass_b] = analyseMagnetometers({ ...base, mountingRotations: {}, notes: [] });
+    expect(compass_a.mountingComparison).toBeNull();
+    expect(compass_b.mountingComparison?.reference).toBe("compass_a");
+    expect(compass_b.mountingComparison?.fromDeclaredDeg).toBeLessThan(2);
+    expect(compass_a.declaredRotation.name).toBe("none");
     // No accelerometer, no current column: no dip, no coupling.
-    expect(mag0.dip).toBeNull();
-    expect(mag0.currentCoupling).toBeNull();
+    expect(compass_a.dip).toBeNull();
+    expect(compass_a.currentCoupling).toBeNull();
   });
 
   test("an unknown rotation name is refused", () => {
-    expect(() => analyseMagnetometers({ ...base, mountingRotations: { mag1: "sideways" }, notes: [] })).toThrow(RangeError);
+    expect(() => analyseMagnetometers({ ...base, mountingRotations: { compass_b: "sideways" }, notes: [] })).toThrow(RangeError);
   });
 
   test("a current column that never changes while still is noted, not measured", () => {
@@ -58,8 +58,8 @@ describe("analyseMagnetometers", () => {
       columns: { ...table.columns, current: new Float64Array(table.length) },
     };
     const notes: string[] = [];
-    const [mag0] = analyseMagnetometers({ ...base, capture: withCurrent, mountingRotations: {}, notes });
-    expect(mag0.currentCoupling).toBeNull();
+    const [compass_a] = analyseMagnetometers({ ...base, capture: withCurrent, mountingRotations: {}, notes });
+    expect(compass_a.currentCoupling).toBeNull();
     expect(notes.join(" ")).toMatch(/current column is present/);
   });
 });

@@ -3,7 +3,7 @@ import { bayesianInformationCriterion, chooseMagModel, fitMagModel } from "@/geo
 import type { Mat3 } from "@/geometry/types";
 import { simulateCapture } from "@/geometry/simulator";
 
-function mag0(softIron: Mat3 | "none" | "strong", seed = 4) {
+function compass_a(softIron: Mat3 | "none" | "strong", seed = 4) {
   const { table } = simulateCapture({
     seed,
     pathSeconds: 40,
@@ -11,7 +11,7 @@ function mag0(softIron: Mat3 | "none" | "strong", seed = 4) {
     gyro: false,
     magnetometers: [{ hardIronOffset: [20, -8, 35], softIron, noise: 0.3 }],
   });
-  return { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
+  return { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] };
 }
 
 describe("bayesianInformationCriterion", () => {
@@ -25,7 +25,7 @@ describe("bayesianInformationCriterion", () => {
 
 describe("fitMagModel", () => {
   test("reports the parameter count of each model (4, 6, 9 by definition)", () => {
-    const series = mag0("strong");
+    const series = compass_a("strong");
     const counts = (["sphere", "axis", "full"] as const).map((m) => {
       const r = fitMagModel(series, m);
       return r.ok ? r.fit.parameterCount : -1;
@@ -49,7 +49,7 @@ describe("chooseMagModel", () => {
     },
     { label: "soft iron with cross terms → full", softIron: "strong" as const, expected: "full" },
   ])("auto: $label", ({ softIron, expected }) => {
-    const result = chooseMagModel(mag0(softIron), "auto");
+    const result = chooseMagModel(compass_a(softIron), "auto");
     expect(result.ok).toBe(true);
     if (!result.ok) return;
     expect(result.choice.chosen.estimate.model).toBe(expected);
@@ -61,7 +61,7 @@ describe("chooseMagModel", () => {
     { label: "sphere", model: "sphere" as const },
     { label: "axis", model: "axis" as const },
   ])("a forced model is used even when a bigger one fits better ($label)", ({ model }) => {
-    const result = chooseMagModel(mag0("strong"), model);
+    const result = chooseMagModel(compass_a("strong"), model);
     expect(result.ok && result.choice.chosen.estimate.model).toBe(model);
     if (!result.ok) return;
     expect(result.choice.reason).toMatch(/requested/);

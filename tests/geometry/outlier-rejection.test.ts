@@ -35,7 +35,7 @@ describe("fitWithOutlierRejection", () => {
       gyro: false,
       magnetometers: [{ hardIronOffset: [15, 25, -40], softIron: "mild", noise: 0.3 }],
     });
-    return { series: { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] }, truth };
+    return { series: { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] }, truth };
   };
 
   test("spikes are rejected and counted, and the offset is recovered despite them", () => {

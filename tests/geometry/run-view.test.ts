@@ -33,7 +33,7 @@ describe("buildRunView", () => {
       expect(Math.abs(r - radius)).toBeLessThan(2);
     }
     expect(view.series.timeS.length).toBeLessThanOrEqual(1500);
-    expect(view.series.fieldStrength.mag0.length).toBe(view.series.timeS.length);
+    expect(view.series.fieldStrength.compass_a.length).toBe(view.series.timeS.length);
     expect(mag.residualHistogram!.counts.reduce((a, b) => a + b, 0)).toBe(view.sampleCount);
     expect(mag.residualHistogram!.edges.length).toBe(mag.residualHistogram!.counts.length + 1);
     expect(mag.cellCounts!.length).toBe(12 * mag.gridResolution! ** 2);
@@ -53,7 +53,10 @@ describe("buildRunView", () => {
     const { view } = viewOf({
       seed: 6,
       pathSeconds: 60,
-      magnetometers: [{}, { mountingRotation: mountingRotationByName(actual)!.matrix, declaredRotation: mountingRotationByName("none")!.matrix }],
+      magnetometers: [
+        {},
+        { mountingRotation: mountingRotationByName(actual)!.matrix, declaredRotation: mountingRotationByName("none")!.matrix },
+      ],
     });
     const [a, b] = view.pairedDirections!.directions;
     const angles: number[] = [];
@@ -74,7 +77,13 @@ describe("buildRunView", () => {
   });
 
   test("a motor run gives the coupling scatter with the fitted slope", () => {
-    const { view } = viewOf({ seed: 8, holds: { faces: ["+z"] }, pathSeconds: 40, magnetometers: [{ currentCoupling: [0.3, 0.1, -0.25] }], currentTest: { maxAmps: 40 } });
+    const { view } = viewOf({
+      seed: 8,
+      holds: { faces: ["+z"] },
+      pathSeconds: 40,
+      magnetometers: [{ currentCoupling: [0.3, 0.1, -0.25] }],
+      currentTest: { maxAmps: 40 },
+    });
     expect(view.coupling).toHaveLength(1);
     const c = view.coupling[0];
     expect(c.input).toBe("current");

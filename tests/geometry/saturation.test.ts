@@ -3,7 +3,7 @@ import { analyseSaturation, quantisationStepOf } from "@/geometry/saturation";
 import { createRandom } from "@/geometry/random";
 import { simulateCapture } from "@/geometry/simulator";
 
-function mag0(clipLevel?: number, quantisationStep?: number) {
+function compass_a(clipLevel?: number, quantisationStep?: number) {
   const { table } = simulateCapture({
     seed: 13,
     pathSeconds: 40,
@@ -11,7 +11,7 @@ function mag0(clipLevel?: number, quantisationStep?: number) {
     gyro: false,
     magnetometers: [{ hardIronOffset: [5, -3, 8], clipLevel, quantisationStep }],
   });
-  return { x: table.columns["mag0.x"], y: table.columns["mag0.y"], z: table.columns["mag0.z"] };
+  return { x: table.columns["compass_a.x"], y: table.columns["compass_a.y"], z: table.columns["compass_a.z"] };
 }
 
 describe("quantisationStepOf", () => {
@@ -34,7 +34,7 @@ describe("quantisationStepOf", () => {
 describe("analyseSaturation", () => {
   test("clipping at ±40 µT with a 48 µT field is flagged on every axis that reaches it", () => {
     // Truth: the simulator clamps each axis to ±40 µT; every axis of a full tumble reaches ±48 µT.
-    const report = analyseSaturation(mag0(40));
+    const report = analyseSaturation(compass_a(40));
     expect(report.clipped).toBe(true);
     for (const axis of report.axes) {
       expect(axis.clippedHigh || axis.clippedLow).toBe(true);
@@ -47,7 +47,7 @@ describe("analyseSaturation", () => {
     { label: "continuous values", step: undefined },
     { label: "quantised at 0.15 µT", step: 0.15 },
   ])("an unclipped tumble is not flagged ($label)", ({ step }) => {
-    const report = analyseSaturation(mag0(undefined, step));
+    const report = analyseSaturation(compass_a(undefined, step));
     expect(report.clipped).toBe(false);
     expect(report.axes.map((a) => a.clippedHigh || a.clippedLow)).toEqual([false, false, false]);
   });
@@ -57,7 +57,7 @@ describe("analyseSaturation", () => {
     { label: "0.15 µT steps are fine", step: 0.15, coarse: false },
     { label: "1.5 µT steps are coarse", step: 1.5, coarse: true },
   ])("quantisation: $label", ({ step, coarse }) => {
-    const report = analyseSaturation(mag0(undefined, step));
+    const report = analyseSaturation(compass_a(undefined, step));
     expect(report.coarseQuantisation).toBe(coarse);
     report.axes.forEach((a) => expect(a.quantisationStep).toBeCloseTo(step, 9));
   });

@@ -13,7 +13,7 @@ describe("compareAccelerometers", () => {
   const periods = findStillPeriods(recording.time, recording.accel);
 
   test("identical units agree", () => {
-    const result = compareAccelerometers(["accel0", "accel1"], recording.accel, copy(recording.accel), periods)!;
+    const result = compareAccelerometers(["accel_a", "accel_b"], recording.accel, copy(recording.accel), periods)!;
     expect(result.rmsDifference).toBe(0);
     expect(result.maxAngleDeg).toBeCloseTo(0, 6);
     expect(result.periodsUsed).toBe(6);
@@ -29,7 +29,7 @@ describe("compareAccelerometers", () => {
       other.y[i] += shift[1];
       other.z[i] += shift[2];
     }
-    const result = compareAccelerometers(["accel0", "accel1"], recording.accel, other, periods)!;
+    const result = compareAccelerometers(["accel_a", "accel_b"], recording.accel, other, periods)!;
     expect(result.rmsDifference).toBeCloseTo(rms, 9);
     expect(result.meanDifference[0]).toBeCloseTo(shift[0], 9);
   });
@@ -62,7 +62,7 @@ describe("compareGyroscopes", () => {
   test("a bias difference is reported apart from dynamic disagreement", () => {
     const other = copy(recording.gyro);
     for (let i = 0; i < other.x.length; i++) other.z[i] += 0.01;
-    const result = compareGyroscopes(["gyro0", "gyro1"], recording.gyro, other)!;
+    const result = compareGyroscopes(["gyro_a", "gyro_b"], recording.gyro, other)!;
     expect(result.meanDifference[2]).toBeCloseTo(0.01, 12);
     expect(result.rmsDynamicDifference).toBeLessThan(1e-9);
     expect(result.relativeDifferencePercent).toBeLessThan(1e-6);
@@ -75,7 +75,7 @@ describe("compareGyroscopes", () => {
       other.y[i] *= 1.02;
       other.z[i] *= 1.02;
     }
-    const result = compareGyroscopes(["gyro0", "gyro1"], recording.gyro, other)!;
+    const result = compareGyroscopes(["gyro_a", "gyro_b"], recording.gyro, other)!;
     // The RMS is about a mean that the scale error also shifts, so slightly under 2%.
     expect(result.relativeDifferencePercent).toBeGreaterThan(1.5);
     expect(result.relativeDifferencePercent).toBeLessThan(2.01);

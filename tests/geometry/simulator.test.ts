@@ -17,26 +17,26 @@ describe("simulateCapture", () => {
     const a = simulateCapture({ seed: 5, pathSeconds: 5 });
     const b = simulateCapture({ seed: 5, pathSeconds: 5 });
     const c = simulateCapture({ seed: 6, pathSeconds: 5 });
-    expect(a.table.columns["mag0.x"]).toEqual(b.table.columns["mag0.x"]);
-    expect(a.table.columns["mag0.x"]).not.toEqual(c.table.columns["mag0.x"]);
+    expect(a.table.columns["compass_a.x"]).toEqual(b.table.columns["compass_a.x"]);
+    expect(a.table.columns["compass_a.x"]).not.toEqual(c.table.columns["compass_a.x"]);
   });
 
   test("canonical columns in order, all of the table's length", () => {
     const { table } = simulateCapture({ pathSeconds: 2, magnetometers: [{}, {}], currentTest: { maxAmps: 10, seconds: 2 } });
     expect(table.fields).toEqual([
       "time",
-      "mag0.x",
-      "mag0.y",
-      "mag0.z",
-      "mag1.x",
-      "mag1.y",
-      "mag1.z",
-      "accel0.x",
-      "accel0.y",
-      "accel0.z",
-      "gyro0.x",
-      "gyro0.y",
-      "gyro0.z",
+      "compass_a.x",
+      "compass_a.y",
+      "compass_a.z",
+      "compass_b.x",
+      "compass_b.y",
+      "compass_b.z",
+      "accel_a.x",
+      "accel_a.y",
+      "accel_a.z",
+      "gyro_a.x",
+      "gyro_a.y",
+      "gyro_a.z",
       "current",
       "throttle",
     ]);
@@ -47,7 +47,7 @@ describe("simulateCapture", () => {
     const { table, truth } = simulateCapture({ pathSeconds: 10, magnetometers: [{ noise: 0 }] });
     expect(truth.fieldStrength).toBeCloseTo(norm(DEFAULT_SITE_FIELD_NED), 12);
     for (let i = 0; i < table.length; i += 37) {
-      expect(Math.hypot(table.columns["mag0.x"][i], table.columns["mag0.y"][i], table.columns["mag0.z"][i])).toBeCloseTo(
+      expect(Math.hypot(table.columns["compass_a.x"][i], table.columns["compass_a.y"][i], table.columns["compass_a.z"][i])).toBeCloseTo(
         truth.fieldStrength,
         9,
       );
@@ -56,10 +56,10 @@ describe("simulateCapture", () => {
 
   test.each<{ label: string; face: BodyFace; axis: string; sign: number }>([
     // At rest the accelerometer reads the specific force, −g along the body axis that points down.
-    { label: "level (+z down)", face: "+z", axis: "accel0.z", sign: -1 },
-    { label: "upside down (−z down)", face: "-z", axis: "accel0.z", sign: 1 },
-    { label: "nose down (+x down)", face: "+x", axis: "accel0.x", sign: -1 },
-    { label: "left side down (−y down)", face: "-y", axis: "accel0.y", sign: 1 },
+    { label: "level (+z down)", face: "+z", axis: "accel_a.z", sign: -1 },
+    { label: "upside down (−z down)", face: "-z", axis: "accel_a.z", sign: 1 },
+    { label: "nose down (+x down)", face: "+x", axis: "accel_a.x", sign: -1 },
+    { label: "left side down (−y down)", face: "-y", axis: "accel_a.y", sign: 1 },
   ])("still holds: $label reads about ∓g on that axis (standard gravity, CGPM 1901)", ({ face, axis, sign }) => {
     const { table, truth } = simulateCapture({ pathSeconds: 0, holds: { faces: [face] } });
     expect(truth.gravity).toBe(STANDARD_GRAVITY_MPS2);
@@ -75,7 +75,7 @@ describe("simulateCapture", () => {
       accelerometer: { offset: [0, 0, 0.3], scale: [1, 1, 1.02], noise: 0 },
     });
     const hold = truth.holds[0];
-    expect(meanOver(table.columns["accel0.z"], truth.sampleRateHz, hold.startS, hold.endS)).toBeCloseTo(-9.79 * 1.02 + 0.3, 6);
+    expect(meanOver(table.columns["accel_a.z"], truth.sampleRateHz, hold.startS, hold.endS)).toBeCloseTo(-9.79 * 1.02 + 0.3, 6);
   });
 
   test("wobble shows in the accelerometer and gyro during holds; a tilt moves gravity off the axis", () => {
@@ -96,27 +96,27 @@ describe("simulateCapture", () => {
     const spread = (c: Float64Array, from: number, to: number) => Math.max(...c.subarray(from, to)) - Math.min(...c.subarray(from, to));
     const window = (cap: typeof calm) =>
       [Math.ceil(cap.truth.holds[0].startS * 50) + 5, Math.floor(cap.truth.holds[0].endS * 50) - 5] as const;
-    expect(spread(calm.table.columns["gyro0.x"], ...window(calm))).toBeLessThan(1e-9);
-    expect(spread(shaky.table.columns["gyro0.x"], ...window(shaky))).toBeGreaterThan(0.05);
-    const z = meanOver(shaky.table.columns["accel0.z"], 50, shaky.truth.holds[0].startS, shaky.truth.holds[0].endS);
+    expect(spread(calm.table.columns["gyro_a.x"], ...window(calm))).toBeLessThan(1e-9);
+    expect(spread(shaky.table.columns["gyro_a.x"], ...window(shaky))).toBeGreaterThan(0.05);
+    const z = meanOver(shaky.table.columns["accel_a.z"], 50, shaky.truth.holds[0].startS, shaky.truth.holds[0].endS);
     // An 8° tilt leaves g·cos 8° on z (wobble averages out roughly over the hold).
     expect(-z).toBeCloseTo(STANDARD_GRAVITY_MPS2 * Math.cos((8 * Math.PI) / 180), 1);
   });
 
   test("yaw-only path: the gyro reads the turn rate about z (two turns in 60 s = 0.2094 rad/s)", () => {
     const { table, truth } = simulateCapture({ path: "yaw-only", pathSeconds: 60, gyro: { noise: 0 } });
-    const z = meanOver(table.columns["gyro0.z"], truth.sampleRateHz, 1, 59);
+    const z = meanOver(table.columns["gyro_a.z"], truth.sampleRateHz, 1, 59);
     expect(z).toBeCloseTo((4 * Math.PI) / 60, 4);
-    expect(Math.abs(meanOver(table.columns["gyro0.x"], truth.sampleRateHz, 1, 59))).toBeLessThan(1e-6);
+    expect(Math.abs(meanOver(table.columns["gyro_a.x"], truth.sampleRateHz, 1, 59))).toBeLessThan(1e-6);
   });
 
   test("gyro rates integrate back to the attitude change along a tumble (rate consistent with the motion)", () => {
     const { table } = simulateCapture({ path: "full", pathSeconds: 20, gyro: { noise: 0 }, magnetometers: [{ noise: 0 }] });
     // Rotate the first field reading by the integrated body rates and compare with the last.
-    let v = [table.columns["mag0.x"][0], table.columns["mag0.y"][0], table.columns["mag0.z"][0]];
+    let v = [table.columns["compass_a.x"][0], table.columns["compass_a.y"][0], table.columns["compass_a.z"][0]];
     const dt = 1 / 50;
     for (let i = 0; i < table.length - 1; i++) {
-      const w = [table.columns["gyro0.x"][i] * dt, table.columns["gyro0.y"][i] * dt, table.columns["gyro0.z"][i] * dt];
+      const w = [table.columns["gyro_a.x"][i] * dt, table.columns["gyro_a.y"][i] * dt, table.columns["gyro_a.z"][i] * dt];
       // A fixed vector seen from a turning body turns the other way: v' = v − ω × v (to first order), renormalised.
       const c = [w[1] * v[2] - w[2] * v[1], w[2] * v[0] - w[0] * v[2], w[0] * v[1] - w[1] * v[0]];
       const next = [v[0] - c[0], v[1] - c[1], v[2] - c[2]];
@@ -124,7 +124,7 @@ describe("simulateCapture", () => {
       v = next.map((a) => a / n);
     }
     const last = table.length - 1;
-    const truthLast = [table.columns["mag0.x"][last], table.columns["mag0.y"][last], table.columns["mag0.z"][last]];
+    const truthLast = [table.columns["compass_a.x"][last], table.columns["compass_a.y"][last], table.columns["compass_a.z"][last]];
     const angle = Math.acos(
       (v[0] * truthLast[0] + v[1] * truthLast[1] + v[2] * truthLast[2]) / (Math.hypot(...v) * Math.hypot(...truthLast)),
     );
@@ -148,7 +148,7 @@ describe("simulateCapture", () => {
         ...(distanceM ? { steel: { distanceM } } : {}),
       });
       const m = Array.from({ length: table.length }, (_, i) =>
-        Math.hypot(table.columns["mag0.x"][i], table.columns["mag0.y"][i], table.columns["mag0.z"][i]),
+        Math.hypot(table.columns["compass_a.x"][i], table.columns["compass_a.y"][i], table.columns["compass_a.z"][i]),
       );
       return Math.max(...m) - Math.min(...m);
     };
@@ -156,7 +156,7 @@ describe("simulateCapture", () => {
     expect(spreadOfStrength(1)).toBeGreaterThan(1);
   });
 
-  test("second compass: truth gives its rotation to mag0, for a body-frame and a sensor-frame logger", () => {
+  test("second compass: truth gives its rotation to compass_a, for a body-frame and a sensor-frame logger", () => {
     const yaw90 = [
       [0, -1, 0],
       [1, 0, 0],

@@ -14,9 +14,9 @@ function directions(spec: CaptureSpec): Vec3Series {
   return applyCorrection(
     { hardIronOffset: m.loggedHardIronOffset, softIronMatrix: m.expectedSoftIronCorrection },
     {
-      x: table.columns["mag0.x"],
-      y: table.columns["mag0.y"],
-      z: table.columns["mag0.z"],
+      x: table.columns["compass_a.x"],
+      y: table.columns["compass_a.y"],
+      z: table.columns["compass_a.z"],
     },
   );
 }

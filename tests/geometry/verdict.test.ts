@@ -43,7 +43,7 @@ describe("diagnose", () => {
     { label: "a non-ellipsoid refusal", checks: [check("mag.fit", "fail", { measured: "not-an-ellipsoid" })], top: "fit-refused" },
     {
       label: "mounting against declaration",
-      checks: [check("mag.mounting", "fail", { sensor: "mag1" }), check("mag.dip", "warn", { sensor: "mag1" })],
+      checks: [check("mag.mounting", "fail", { sensor: "compass_b" }), check("mag.dip", "warn", { sensor: "compass_b" })],
       top: "mounting",
     },
     {
@@ -75,8 +75,8 @@ describe("diagnose", () => {
   });
 
   test("evidence names the sensor", () => {
-    const causes = diagnose([check("mag.mounting", "fail", { sensor: "mag1" })]);
-    expect(causes[0].evidence).toEqual(["mag.mounting@mag1"]);
-    expect(causes[0].why).toContain("(mag1)");
+    const causes = diagnose([check("mag.mounting", "fail", { sensor: "compass_b" })]);
+    expect(causes[0].evidence).toEqual(["mag.mounting@compass_b"]);
+    expect(causes[0].why).toContain("(Compass B)");
   });
 });

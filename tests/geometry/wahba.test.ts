@@ -1,3 +1,4 @@
+import { slotName } from "@/geometry/sensor-slots";
 import { describe, expect, test } from "vitest";
 import { applyCorrection, calibrateMagnetometer } from "@/geometry/calibrate-magnetometer";
 import { MOUNTING_ROTATIONS } from "@/geometry/mounting-rotations";
@@ -73,7 +74,7 @@ describe("relativeRotation", () => {
         },
       ],
     });
-    const series = (k: number) => ({ x: table.columns[`mag${k}.x`], y: table.columns[`mag${k}.y`], z: table.columns[`mag${k}.z`] });
+    const series = (k: number) => ({ x: table.columns[`${slotName("mag", k)}.x`], y: table.columns[`${slotName("mag", k)}.y`], z: table.columns[`${slotName("mag", k)}.z`] });
     const corrected = [0, 1].map((k) => {
       const cal = calibrateMagnetometer(series(k), { bootstrap: false });
       if (!cal.ok) throw new Error(cal.detail);

@@ -69,7 +69,7 @@ describe("a good capture", () => {
       siteFieldNed: siteFieldNed(),
       magnetometers: [{ hardIronOffset: [12, -7, 20], softIron: "mild" }],
     });
-    const { runId, status } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { mag0: magId }, csv });
+    const { runId, status } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { compass_a: magId }, csv });
     expect(status).toBe(202);
     const pending = await callRoute(`${WS}/runs/[runId]/status/route.ts`, "GET", { slug: workspace.slug, runId });
     expect(pending.json.status).toBe("uploaded");
@@ -97,7 +97,7 @@ describe("a good capture", () => {
     };
     expect(body.magnetometers[0].offset[0]).toBeCloseTo(12, 0);
     expect(body.checks.length).toBeGreaterThan(3);
-    expect(body.samples.fields).toContain("mag0.x");
+    expect(body.samples.fields).toContain("compass_a.x");
 
     const samples = await callRoute(`${WS}/runs/[runId]/samples/route.ts`, "GET", { slug: workspace.slug, runId });
     const manifest = samples.json as { url: string; fields: string[]; length: number };
@@ -106,8 +106,8 @@ describe("a good capture", () => {
     const floats = new Float32Array(blob.buffer, blob.byteOffset, blob.length / 4);
     const firstRow = csv.split("\n")[1].split(",").map(Number);
     const header = csv.split("\n")[0].split(",");
-    const magX = firstRow[header.indexOf("mag0.x")];
-    expect(floats[manifest.fields.indexOf("mag0.x") * manifest.length]).toBeCloseTo(magX, 3);
+    const magX = firstRow[header.indexOf("compass_a.x")];
+    expect(floats[manifest.fields.indexOf("compass_a.x") * manifest.length]).toBeCloseTo(magX, 3);
 
     // Processing the same version again changes nothing (idempotent).
     expect(await processRunVersion(await currentVersionOf(runId))).toBe("skipped");
@@ -117,7 +117,7 @@ describe("a good capture", () => {
   test("re-processing with another model keeps both versions' results", async () => {
     actAs(owner.id);
     const csv = simulatedCsv({ seed: 12, siteFieldNed: siteFieldNed() });
-    const { runId } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { mag0: magId }, csv });
+    const { runId } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { compass_a: magId }, csv });
     await processRunVersion(await currentVersionOf(runId));
     const again = await callRoute(`${WS}/runs/[runId]/versions/route.ts`, "POST", { slug: workspace.slug, runId }, { model: "sphere" });
     expect(again.status).toBe(202);
@@ -140,7 +140,7 @@ describe("a good capture", () => {
 });
 
 /** Each bad file, with the row and column the message must name (rows count the header as row 1). */
-const GOOD_HEADER = "time,mag0.x,mag0.y,mag0.z";
+const GOOD_HEADER = "time,compass_a.x,compass_a.y,compass_a.z";
 function rows(n: number, at?: (i: number) => string | null): string {
   const lines = [GOOD_HEADER];
   for (let i = 0; i < n; i++) {
@@ -155,7 +155,7 @@ function rows(n: number, at?: (i: number) => string | null): string {
 
 const BAD_FILES: [string, string, RegExp, number | undefined, string | undefined][] = [
   ["wrong delimiter", rows(200).replace(/,/g, " "), /delimiter|separat|column/i, undefined, undefined],
-  ["text in a number column", rows(200, (i) => (i === 41 ? "0.82,12.5,oops,3.1" : null)), /number/i, 43, "mag0.y"],
+  ["text in a number column", rows(200, (i) => (i === 41 ? "0.82,12.5,oops,3.1" : null)), /number/i, 43, "compass_a.y"],
   [
     "missing required columns",
     "time,temperature\n" + Array.from({ length: 200 }, (_, i) => `${i},20`).join("\n"),
@@ -163,8 +163,8 @@ const BAD_FILES: [string, string, RegExp, number | undefined, string | undefined
     undefined,
     undefined,
   ],
-  ["NaN in a value", rows(200, (i) => (i === 9 ? "0.18,NaN,1,2" : null)), /NaN|finite|number/i, 11, "mag0.x"],
-  ["Infinity in a value", rows(200, (i) => (i === 9 ? "0.18,1,Infinity,2" : null)), /Inf|finite|number/i, 11, "mag0.y"],
+  ["NaN in a value", rows(200, (i) => (i === 9 ? "0.18,NaN,1,2" : null)), /NaN|finite|number/i, 11, "compass_a.x"],
+  ["Infinity in a value", rows(200, (i) => (i === 9 ? "0.18,1,Infinity,2" : null)), /Inf|finite|number/i, 11, "compass_a.y"],
   ["time going backwards", rows(200, (i) => (i === 100 ? "0.5,1,2,3" : null)), /time|monoton|backwards|increas/i, 102, "time"],
   ["too few samples", rows(12), /too few|at least/i, undefined, undefined],
 ];
@@ -172,7 +172,7 @@ const BAD_FILES: [string, string, RegExp, number | undefined, string | undefined
 describe.each(BAD_FILES)("a bad file: %s", (_label, csv, message, row, column) => {
   test("ends failed, naming row and column, keeping the original and no results", async () => {
     actAs(owner.id);
-    const { runId } = await uploadRun(workspace, { vehicleId, sensorSlots: { mag0: magId }, csv });
+    const { runId } = await uploadRun(workspace, { vehicleId, sensorSlots: { compass_a: magId }, csv });
     const versionId = await currentVersionOf(runId);
     expect(await processRunVersion(versionId)).toBe("failed");
     const status = await callRoute(`${WS}/runs/[runId]/status/route.ts`, "GET", { slug: workspace.slug, runId });
@@ -231,7 +231,7 @@ describe("refused before any upload", () => {
         capturedOn: "2026-06-01",
         fileName: "c.csv",
         fileSize: 10,
-        sensorSlots: { mag0: magId },
+        sensorSlots: { compass_a: magId },
       },
     );
     expect(response.status).toBe(409);
@@ -285,7 +285,7 @@ describe("lists", () => {
 
   test("a deleted run leaves the lists but keeps its rows", async () => {
     actAs(owner.id);
-    const { runId } = await uploadRun(workspace, { vehicleId, sensorSlots: { mag0: magId }, csv: rows(200) });
+    const { runId } = await uploadRun(workspace, { vehicleId, sensorSlots: { compass_a: magId }, csv: rows(200) });
     expect((await callRoute(`${WS}/runs/[runId]/route.ts`, "DELETE", { slug: workspace.slug, runId })).status).toBe(200);
     expect((await callRoute(`${WS}/runs/[runId]/route.ts`, "GET", { slug: workspace.slug, runId })).status).toBe(404);
     expect(await db().models.Run.findByPk(runId, { paranoid: false })).not.toBeNull();
@@ -295,7 +295,12 @@ describe("lists", () => {
 describe("the drawing data", () => {
   test("is stored beside the samples and read back for the run page", async () => {
     actAs(owner.id);
-    const { runId } = await uploadRun(workspace, { vehicleId, siteId, sensorSlots: { mag0: magId }, csv: simulatedCsv({ seed: 13, siteFieldNed: siteFieldNed() }) });
+    const { runId } = await uploadRun(workspace, {
+      vehicleId,
+      siteId,
+      sensorSlots: { compass_a: magId },
+      csv: simulatedCsv({ seed: 13, siteFieldNed: siteFieldNed() }),
+    });
     await processRunVersion(await currentVersionOf(runId));
     const { getRunPageData } = await import("@/lib/data/run-page");
     const data = await getRunPageData(workspace.id, runId);

@@ -10,13 +10,13 @@ function check(id: string, status: CheckStatus, sensor?: string, remedy: string 
 }
 
 const CHECKS: Check[] = [
-  check("accel.faces", "pass", "accel0"),
-  check("gyro.bias", "skipped", "gyro0"),
-  check("mag.coverage", "pass", "mag0"),
-  check("mag.gap", "warn", "mag0"),
-  check("mag.fit", "fail", "mag1"),
-  check("mag.residual", "pass", "mag1"),
-  check("mag.current", "skipped", "mag0", "Before any capture that powers the motors: propellers off, vehicle restrained."),
+  check("accel.faces", "pass", "accel_a"),
+  check("gyro.bias", "skipped", "gyro_a"),
+  check("mag.coverage", "pass", "compass_a"),
+  check("mag.gap", "warn", "compass_a"),
+  check("mag.fit", "fail", "compass_b"),
+  check("mag.residual", "pass", "compass_b"),
+  check("mag.current", "skipped", "compass_a", "Before any capture that powers the motors: propellers off, vehicle restrained."),
   check("capture.agreement", "warn"),
 ];
 
@@ -48,15 +48,15 @@ describe("groupChecks by status", () => {
   });
   test("keeps the engine's order within a status", () => {
     expect(groups.find((g) => g.key === "pass")!.shown.map(keyOf)).toEqual([
-      "accel.faces@accel0",
-      "mag.coverage@mag0",
-      "mag.residual@mag1",
+      "accel.faces@accel_a",
+      "mag.coverage@compass_a",
+      "mag.residual@compass_b",
     ]);
   });
   test("folds skipped checks away, except one whose advice carries safety cautions", () => {
     const skipped = groups.find((g) => g.key === "skipped")!;
-    expect(skipped.folded.map(keyOf)).toEqual(["gyro.bias@gyro0"]);
-    expect(skipped.shown.map(keyOf)).toEqual(["mag.current@mag0"]);
+    expect(skipped.folded.map(keyOf)).toEqual(["gyro.bias@gyro_a"]);
+    expect(skipped.shown.map(keyOf)).toEqual(["mag.current@compass_a"]);
   });
   test("leaves out empty groups", () => {
     expect(groupChecks([check("a", "pass")], "status").map((g) => g.key)).toEqual(["pass"]);
@@ -68,25 +68,25 @@ describe("groupChecks by status", () => {
 });
 
 describe("groupChecks by sensor", () => {
-  const groups = groupChecks(CHECKS, "sensor", { mag1: "mast module" });
+  const groups = groupChecks(CHECKS, "sensor", { compass_b: "mast module" });
   test("the sensor with the worst result first, then sensor order, whole-capture checks among them by result", () => {
     expect(groups.map((g) => [g.key, g.worst])).toEqual([
-      ["mag1", "fail"],
-      ["mag0", "warn"],
+      ["compass_b", "fail"],
+      ["compass_a", "warn"],
       ["capture", "warn"],
-      ["accel0", "pass"],
-      ["gyro0", "skipped"],
+      ["accel_a", "pass"],
+      ["gyro_a", "skipped"],
     ]);
   });
   test("fails first within a sensor, named with its label", () => {
-    const mag1 = groups[0];
-    expect(mag1.title).toBe("Compass mag1 · mast module");
-    expect(mag1.shown.map((c) => c.status)).toEqual(["fail", "pass"]);
+    const compass_b = groups[0];
+    expect(compass_b.title).toBe("Compass B · mast module");
+    expect(compass_b.shown.map((c) => c.status)).toEqual(["fail", "pass"]);
   });
   test("a group of skipped checks only is folded", () => {
-    const gyro = groups.find((g) => g.key === "gyro0")!;
+    const gyro = groups.find((g) => g.key === "gyro_a")!;
     expect(gyro.shown).toEqual([]);
-    expect(gyro.folded.map(keyOf)).toEqual(["gyro.bias@gyro0"]);
+    expect(gyro.folded.map(keyOf)).toEqual(["gyro.bias@gyro_a"]);
   });
 });
 
@@ -99,7 +99,7 @@ describe("rankCauses", () => {
 
 describe("parseEvidence and checkAnchor", () => {
   test.each([
-    ["with a sensor", "mag.mounting@mag1", { checkId: "mag.mounting", sensor: "mag1" }, "check-mag-mounting-mag1"],
+    ["with a sensor", "mag.mounting@compass_b", { checkId: "mag.mounting", sensor: "compass_b" }, "check-mag-mounting-compass_b"],
     ["whole capture", "capture.agreement", { checkId: "capture.agreement", sensor: null }, "check-capture-agreement"],
   ])("%s", (_label, entry, parsed, anchor) => {
     expect(parseEvidence(entry)).toEqual(parsed);
@@ -109,28 +109,28 @@ describe("parseEvidence and checkAnchor", () => {
 
 describe("sensorName", () => {
   test.each([
-    ["compass with a label", "mag1", { mag1: "mast module" }, "Compass mag1 · mast module"],
-    ["accelerometer without a label", "accel0", {}, "Accelerometer accel0"],
-    ["gyroscope", "gyro0", { gyro0: "board IMU" }, "Gyroscope gyro0 · board IMU"],
+    ["compass with a label", "compass_b", { compass_b: "mast module" }, "Compass B · mast module"],
+    ["accelerometer without a label", "accel_a", {}, "Accelerometer A"],
+    ["gyroscope", "gyro_a", { gyro_a: "board IMU" }, "Gyroscope A · board IMU"],
     ["no sensor", undefined, {}, "Whole capture"],
-    ["an unknown slot", "baro0", {}, "baro0"],
+    ["an unknown slot", "baro_a", {}, "baro_a"],
   ])("%s", (_label, slot, labels, name) => {
     expect(sensorName(slot, labels)).toBe(name);
   });
   test("labels from the run's sensor slots", () => {
-    expect(sensorLabelsOf([{ slot: "mag0", label: "board" }])).toEqual({ mag0: "board" });
+    expect(sensorLabelsOf([{ slot: "compass_a", label: "board" }])).toEqual({ compass_a: "board" });
   });
 });
 
 describe("compareSensors", () => {
-  test("compasses, accelerometers, gyroscopes by number, whole capture last", () => {
+  test("compasses, accelerometers, gyroscopes by letter, whole capture last", () => {
     // null, not undefined: Array.prototype.sort moves undefined to the end without asking the comparator.
-    expect([null, "gyro0", "mag10", "accel0", "mag2", "mag0"].sort(compareSensors)).toEqual([
-      "mag0",
-      "mag2",
-      "mag10",
-      "accel0",
-      "gyro0",
+    expect([null, "gyro_a", "compass_j", "accel_a", "compass_c", "compass_a"].sort(compareSensors)).toEqual([
+      "compass_a",
+      "compass_c",
+      "compass_j",
+      "accel_a",
+      "gyro_a",
       null,
     ]);
   });

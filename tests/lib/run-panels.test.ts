@@ -67,7 +67,7 @@ const rotated = run(
       { mountingRotation: mountingRotationByName("yaw 90")!.matrix, declaredRotation: mountingRotationByName("none")!.matrix },
     ],
   },
-  { mag1: "none" },
+  { compass_b: "none" },
 );
 const motor = run({
   seed: 105,
@@ -134,7 +134,7 @@ describe("CheckList", () => {
   });
   test("measured values carry their units", () => {
     const { checks } = panels(rotated.analysis);
-    const mounting = rotated.analysis.checks.find((c) => c.id === "mag.mounting" && c.sensor === "mag1")!;
+    const mounting = rotated.analysis.checks.find((c) => c.id === "mag.mounting" && c.sensor === "compass_b")!;
     expect(mounting.unit).toBe("° from declared");
     expect(checks).toMatch(/data-testid="check-measured">\s*(89\.\d|90\.0)° from declared/);
   });
@@ -142,11 +142,11 @@ describe("CheckList", () => {
 
 describe("ParametersTable", () => {
   test("a second compass shows the measured rotation, the nearest standard one and the angle from the declaration", () => {
-    const { parameters } = panels(rotated.analysis, { mag1: "mast module" });
-    const mag1 = parameters.slice(parameters.indexOf('data-sensor="mag1"'));
-    expect(mag1).toContain("Compass mag1 · mast module");
-    expect(mag1).toMatch(/nearest standard: <span[^>]*>yaw 90<\/span>/);
-    expect(mag1).toMatch(/data-testid="rotation-from-declared"[\s\S]*?(89\.\d|90\.0)°/);
+    const { parameters } = panels(rotated.analysis, { compass_b: "mast module" });
+    const compass_b = parameters.slice(parameters.indexOf('data-sensor="compass_b"'));
+    expect(compass_b).toContain("Compass B · mast module");
+    expect(compass_b).toMatch(/nearest standard: <span[^>]*>yaw 90<\/span>/);
+    expect(compass_b).toMatch(/data-testid="rotation-from-declared"[\s\S]*?(89\.\d|90\.0)°/);
   });
   test("a fitted compass shows offsets per axis, the soft-iron matrix and the model's field", () => {
     const { parameters } = panels(good.analysis);

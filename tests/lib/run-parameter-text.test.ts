@@ -41,11 +41,11 @@ describe("faceWords and missingFacesText", () => {
 
 describe("fieldUnitOf", () => {
   test.each([
-    ["converted to µT", { mag0: { physical: true } }, "µT"],
-    ["raw counts", { mag0: { physical: false } }, "counts"],
+    ["converted to µT", { compass_a: { physical: true } }, "µT"],
+    ["raw counts", { compass_a: { physical: false } }, "counts"],
     ["unit not reported", undefined, "µT"],
   ])("%s", (_label, units, unit) => {
-    expect(fieldUnitOf("mag0", units)).toBe(unit);
+    expect(fieldUnitOf("compass_a", units)).toBe(unit);
   });
 });
 

@@ -20,9 +20,9 @@ import type { RunView } from "@/geometry/run-view";
 
 describe("timeRows", () => {
   test("one row per instant, a column per sensor, missing values as null", () => {
-    expect(timeRows([0, 0.5], { mag0: [50, 51], mag1: [49] })).toEqual([
-      { timeS: 0, mag0: 50, mag1: 49 },
-      { timeS: 0.5, mag0: 51, mag1: null },
+    expect(timeRows([0, 0.5], { compass_a: [50, 51], compass_b: [49] })).toEqual([
+      { timeS: 0, compass_a: 50, compass_b: 49 },
+      { timeS: 0.5, compass_a: 51, compass_b: null },
     ]);
   });
 });
@@ -191,7 +191,7 @@ describe("plotDataOf", () => {
       view({
         magnetometers: [
           {
-            sensor: "mag0",
+            sensor: "compass_a",
             raw: [1, 2, 3],
             corrected: [1, 2, 3],
             hardIronOffset: null,
@@ -206,7 +206,7 @@ describe("plotDataOf", () => {
             residualHistogram: { edges: [0, 1], counts: [5] },
           },
           {
-            sensor: "mag1",
+            sensor: "compass_b",
             raw: [],
             corrected: null,
             hardIronOffset: null,
@@ -223,7 +223,7 @@ describe("plotDataOf", () => {
         ],
       }),
     );
-    expect(data.residualHistograms).toEqual([{ sensor: "mag0", edges: [0, 1], counts: [5] }]);
+    expect(data.residualHistograms).toEqual([{ sensor: "compass_a", edges: [0, 1], counts: [5] }]);
     expect(JSON.stringify(data)).not.toContain("raw");
   });
 });
@@ -232,9 +232,9 @@ describe("hasPlots", () => {
   const empty: PlotData = plotDataOf(view());
   test.each([
     ["nothing at all", empty, false],
-    ["time without any field strength", { ...empty, series: { ...empty.series, timeS: [0, 1], fieldStrength: { mag0: [] } } }, false],
-    ["a field strength line", { ...empty, series: { ...empty.series, timeS: [0], fieldStrength: { mag0: [50] } } }, true],
-    ["an empty histogram", { ...empty, residualHistograms: [{ sensor: "mag0", edges: [0, 1], counts: [0] }] }, false],
+    ["time without any field strength", { ...empty, series: { ...empty.series, timeS: [0, 1], fieldStrength: { compass_a: [] } } }, false],
+    ["a field strength line", { ...empty, series: { ...empty.series, timeS: [0], fieldStrength: { compass_a: [50] } } }, true],
+    ["an empty histogram", { ...empty, residualHistograms: [{ sensor: "compass_a", edges: [0, 1], counts: [0] }] }, false],
     ["an accelerometer line", { ...empty, series: { ...empty.series, accelMagnitude: [9.8] } }, true],
   ])("%s", (_label, data, expected) => {
     expect(hasPlots(data as PlotData)).toBe(expected);

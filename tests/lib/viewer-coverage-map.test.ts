@@ -7,7 +7,7 @@ import type { RunViewMagnetometer } from "@/geometry/run-view";
 // Invented coverage (demo data): the lower half of the sphere (body z down) left empty.
 function magnetometer(overrides: Partial<RunViewMagnetometer> = {}): RunViewMagnetometer {
   return {
-    sensor: "mag0",
+    sensor: "compass_a",
     raw: [],
     corrected: null,
     hardIronOffset: null,
@@ -44,6 +44,6 @@ describe("CoverageMap", () => {
       createElement(CoverageMap, { magnetometer: magnetometer({ cellCounts: null, gridResolution: null }) }),
     );
     expect(html).not.toContain("<svg");
-    expect(html).toContain("No coverage was measured for mag0");
+    expect(html).toContain("No coverage was measured for Compass A");
   });
 });

@@ -81,9 +81,9 @@ describe("npm run fit", () => {
 
   test("a capture without accelerometer columns has no accelerometer key; --map renames columns", () => {
     const { table } = simulateCapture({ seed: 5, accelerometer: false, gyro: false });
-    const csv = tableToCsv(table).replace("mag0.x,mag0.y,mag0.z", "A,B,C");
+    const csv = tableToCsv(table).replace("compass_a.x,compass_a.y,compass_a.z", "A,B,C");
     const file = write("compass-only.csv", csv);
-    const { code, stdout } = fit(file, "--map", "A=mag0.x,B=mag0.y,C=mag0.z", "--units", "uT");
+    const { code, stdout } = fit(file, "--map", "A=compass_a.x,B=compass_a.y,C=compass_a.z", "--units", "uT");
     expect(code).toBe(0);
     const document = JSON.parse(stdout);
     expect(document).not.toHaveProperty("accelerometer");
@@ -96,7 +96,7 @@ describe("npm run fit", () => {
       edit: (lines: string[]) => {
         lines[7] = lines[7].replace(/^([^,]*),[^,]*/, "$1,oops");
       },
-      message: /row 8, column "mag0.x"/,
+      message: /row 8, column "compass_a.x"/,
     },
     {
       label: "time going backwards",
@@ -108,9 +108,9 @@ describe("npm run fit", () => {
     {
       label: "a missing axis",
       edit: (lines: string[]) => {
-        lines[0] = lines[0].replace("mag0.z", "temperature");
+        lines[0] = lines[0].replace("compass_a.z", "temperature");
       },
-      message: /row 1, column "mag0.z".*missing required column/,
+      message: /row 1, column "compass_a.z".*missing required column/,
     },
   ])(
     "a bad file ($label) exits with 2 and names row and column on stderr",

@@ -62,10 +62,10 @@ describe("parseCsvTable", () => {
   test("reads recognised columns as numbers and keeps units as hints", () => {
     const result = parseCsvTable(goodCsv());
     expect(result.table.length).toBe(12);
-    expect(result.table.fields).toEqual(["time", "mag0.x", "mag0.y", "mag0.z", "accel0.x", "accel0.y", "accel0.z"]);
-    expect(Array.from(result.table.columns["mag0.x"].slice(0, 3))).toEqual([20, 21, 22]);
+    expect(result.table.fields).toEqual(["time", "compass_a.x", "compass_a.y", "compass_a.z", "accel_a.x", "accel_a.y", "accel_a.z"]);
+    expect(Array.from(result.table.columns["compass_a.x"].slice(0, 3))).toEqual([20, 21, 22]);
     expect(result.table.columns.time[11]).toBe(110);
-    expect(result.unitHints["mag0.x"].unit).toBe("uT");
+    expect(result.unitHints["compass_a.x"].unit).toBe("uT");
     expect(result.unitHints.time.unit).toBe("ms");
     expect(result.ignoredColumns).toEqual(["note"]);
     expect(result.delimiter).toBe(",");
@@ -76,7 +76,7 @@ describe("parseCsvTable", () => {
     { label: "semicolon-separated", delimiter: ";" },
   ])("$label files read the same", ({ delimiter }) => {
     const result = parseCsvTable(goodCsv(12, delimiter));
-    expect(result.table.columns["mag0.z"][5]).toBe(44.25);
+    expect(result.table.columns["compass_a.z"][5]).toBe(44.25);
     expect(result.delimiter).toBe(delimiter);
   });
 
@@ -93,8 +93,8 @@ describe("parseCsvTable", () => {
   });
 
   test("the column map overrides names", () => {
-    const result = parseCsvTable(goodCsv(), { map: { ax: "gyro0.x", ay: "gyro0.y", AZ: "gyro0.z" } });
-    expect(result.table.fields).toEqual(["time", "mag0.x", "mag0.y", "mag0.z", "gyro0.x", "gyro0.y", "gyro0.z"]);
+    const result = parseCsvTable(goodCsv(), { map: { ax: "gyro_a.x", ay: "gyro_a.y", AZ: "gyro_a.z" } });
+    expect(result.table.fields).toEqual(["time", "compass_a.x", "compass_a.y", "compass_a.z", "gyro_a.x", "gyro_a.y", "gyro_a.z"]);
   });
 
   // Each bad file names its row (line of the file, header = 1) and column.
@@ -132,7 +132,7 @@ describe("parseCsvTable", () => {
       label: "missing axis",
       edit: (csv: string) => csv.replace("az", "temperature"),
       row: 1,
-      column: "accel0.z",
+      column: "accel_a.z",
       message: /missing required column/,
     },
     { label: "no time column", edit: (csv: string) => csv.replace("time_ms", "index"), row: 1, column: "time", message: /no time column/ },
@@ -200,13 +200,13 @@ describe("parseCsvStream", () => {
     expect(time[65_535]).toBe(655_350);
     expect(time[65_536]).toBe(655_360);
     expect(time[69_999]).toBe(699_990);
-    expect(result.table.columns["mag0.x"][69_999]).toBe(20 + 69_999);
+    expect(result.table.columns["compass_a.x"][69_999]).toBe(20 + 69_999);
   });
 
   test("a multi-byte character split across chunks survives", async () => {
     const text = goodCsv().replace("mag_x (uT)", "mag_x (µT)");
     const result = await parseCsvStream(streamOf(text, 17));
-    expect(result.unitHints["mag0.x"].unit).toBe("uT");
+    expect(result.unitHints["compass_a.x"].unit).toBe("uT");
   });
 
   test.each([

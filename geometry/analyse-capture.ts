@@ -38,9 +38,10 @@ export interface AnalyseCaptureOptions {
   /** Accelerometer model; default "auto". */
   accelerometerModel?: AccelModel | "auto";
   /**
-   * Declared mounting rotation of each compass (by sensor, e.g. "compass_b"): the rotation the
-   * flight controller is told, v_body = R · v_logged, as a matrix or a standard name
-   * ("yaw 90"). Default none: the logged values are taken to be in the body frame already.
+   * Declared mounting of each compass (by sensor, e.g. "compass_b"): the rotation the flight
+   * controller is told, v_body = R · v_logged, as a matrix or the id of one of the 48 mountings
+   * ("x-right.z-down", mounting-rotations.ts). Default "x-forward.z-down" (the identity): the
+   * logged values are taken to be in the body frame already.
    */
   mountingRotations?: Record<string, Mat3 | string>;
   thresholds?: ThresholdOverrides;
@@ -105,7 +106,7 @@ function accelerometerCorrection(result: AccelerometerResult | undefined): Affin
 /**
  * Analyses a capture.
  *
- * @param table canonical fields (time, magN.*, accelN.*, gyroN.*, current, throttle) in any
+ * @param table canonical fields (time, compass_a.*, accel_a.*, gyro_a.*, … current, throttle) in any
  *   units; see `options.units` and `options.unitHints`.
  */
 export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOptions = {}): CaptureAnalysis {

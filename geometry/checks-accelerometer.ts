@@ -272,7 +272,7 @@ export function wobbleCheck(sensor: string, poses: AccelerometerPose[], threshol
   });
 }
 
-/** Bias, noise and drift of a gyroscope at rest. */
+/** Bias, noise and the change of bias between still holds of a gyroscope at rest. */
 export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefusal, thresholds: ThresholdTable): Check[] {
   if (!result.ok) {
     return [
@@ -323,11 +323,11 @@ export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefus
     checks.push(
       gradedCheck(thresholds, {
         id: "gyro.drift",
-        title: "Gyroscope bias stability",
+        title: "Gyroscope bias change between holds",
         sensor,
         measured: driftDeg,
         explain: (status) => ({
-          explanation: `Between the ${result.periodsUsed} still holds the bias moved by up to ${fmt(driftDeg, 2)} °/s.`,
+          explanation: `The bias was measured in each of the ${result.periodsUsed} still holds; the hold furthest from the bias over all holds differs from it by ${fmt(driftDeg, 2)} °/s.`,
           remedy: status === "pass" ? null : "Let the board warm up before calibrating, and make sure each hold is truly still.",
         }),
       }),

@@ -34,6 +34,7 @@ export function gradedCheck(thresholds: ThresholdTable, input: GradedCheckInput)
     explanation,
     remedy,
     source: threshold.source,
+    basis: threshold.basis,
   };
 }
 
@@ -58,6 +59,7 @@ export function skippedCheck(
     explanation: reason,
     remedy,
     source: threshold?.source ?? "not applicable",
+    ...(threshold ? { basis: threshold.basis } : {}),
   };
 }
 

@@ -5,6 +5,7 @@
  * made is returned as skipped with the reason.
  */
 import { slotWords } from "./sensor-slots";
+import { mountingRotationById } from "./mounting-rotations";
 import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { fmt, gradedCheck, skippedCheck } from "./checks-common";
 import type { DipMeasurement } from "./dip-check";
@@ -19,11 +20,9 @@ import type {
 import type { ThresholdTable } from "./thresholds";
 import type { Check, Mat3 } from "./types";
 import { angleBetweenRotationsDeg } from "./rotation";
+import { MOTOR_SAFETY_CAUTION } from "./motor-safety";
+import { sentences, withoutFinalStop } from "./sentence";
 import { norm } from "./vector";
-
-/** The cautions every capture that may power motors carries. */
-export const MOTOR_SAFETY_CAUTION =
-  "Before any capture that powers the motors: propellers off, vehicle restrained, battery handled as its maker directs, people clear. Local aviation rules, the vehicle maker's manual and licensed practice come first.";
 
 const SITE_ADVICE =
   "Calibrate outdoors, several metres from steel, parked vehicles and reinforced concrete, with nothing magnetic in your pockets.";
@@ -33,7 +32,8 @@ export interface MountingComparison {
   reference: string;
   /** What the declarations imply: v_reference = expected · v_this. */
   expected: Mat3;
-  expectedName: string;
+  /** The mounting `expected` is, by id ("x-right.z-down"), or "custom" when it is none of the 48. */
+  expectedId: string;
   result: RelativeRotationResult;
 }
 
@@ -106,7 +106,7 @@ export function coverageCheck(sensor: string, coverage: CoverageResult, threshol
       remedy:
         status === "pass"
           ? null
-          : `Repeat the capture turning the vehicle through every attitude, upside down included. Next, try: ${coverage.nextOrientation}.`,
+          : sentences("Repeat the capture turning the vehicle through every attitude, upside down included", coverage.nextOrientation),
     }),
   });
 }
@@ -120,7 +120,7 @@ export function gapCheck(sensor: string, coverage: CoverageResult, thresholds: T
     digits: 1,
     explain: (status) => ({
       explanation: `The widest cone of directions with no sample has a radius of ${fmt(coverage.largestGapDeg)}°.`,
-      remedy: status === "pass" ? null : `Fill the gap: ${coverage.nextOrientation}.`,
+      remedy: status === "pass" ? null : sentences(coverage.nextOrientation),
     }),
   });
 }
@@ -143,7 +143,10 @@ export function fitCheck(sensor: string, result: MagnetometerResult): Check {
       measured: result.reason,
       threshold: null,
       unit: null,
-      explanation: `No calibration was fitted: ${result.detail}. A fit on such data would look confident and be wrong.`,
+      explanation: sentences(
+        `No calibration was fitted: ${withoutFinalStop(result.detail)}`,
+        "A fit on such data would look confident and be wrong",
+      ),
       remedy: advice[result.reason] ?? "Repeat the capture.",
       source: "common practice",
     };
@@ -400,6 +403,7 @@ export function mountingCheck(sensor: string, mounting: MountingComparison, thre
   }
   const fromDeclared = angleBetweenRotationsDeg(result.rotation, mounting.expected);
   const matchesDeclared = angleBetweenRotationsDeg(result.nearest.matrix, mounting.expected) < 1;
+  const declared = mountingRotationById(mounting.expectedId)?.words ?? "a custom rotation, none of the 48 axis-aligned mountings";
   return gradedCheck(thresholds, {
     id: "mag.mounting",
     title,
@@ -408,14 +412,14 @@ export function mountingCheck(sensor: string, mounting: MountingComparison, thre
     digits: 1,
     explain: (status) => ({
       explanation: matchesDeclared
-        ? `Relative to ${slotWords(mounting.reference)}, this compass is turned ${fmt(fromDeclared)}° from its declared rotation (${mounting.expectedName}).`
-        : `Relative to ${slotWords(mounting.reference)}, this compass behaves as if rotated "${result.nearest.name}" (residual ${fmt(result.residualDeg)}°), but it is declared "${mounting.expectedName}": ${fmt(fromDeclared)}° apart. A compass rotated against its declaration makes the vehicle circle or drift away.`,
+        ? `Relative to ${slotWords(mounting.reference)}, this compass is turned ${fmt(fromDeclared)}° from what was declared (${declared}).`
+        : `Relative to ${slotWords(mounting.reference)}, closest mounting: ${result.nearest.words} (${fmt(fromDeclared)}° from what was declared; ${fmt(result.residualDeg)}° left over). Declared: ${declared}. A compass rotated against its declaration makes the vehicle circle or drift away.`,
       remedy:
         status === "pass"
           ? null
           : matchesDeclared
             ? "Check that the module sits square on its mount and has not been knocked askew."
-            : `Set this compass's declared rotation to match how it is mounted (the data point to "${result.nearest.name}"), or remount it as declared, then recalibrate.`,
+            : `Set this compass's declared mounting to match how it is fitted (the data point to ${result.nearest.words}), or refit it as declared, then recalibrate.`,
     }),
   });
 }
@@ -434,7 +438,7 @@ export function currentCouplingCheck(sensor: string, coupling: CurrentCouplingRe
       remedy:
         status === "pass"
           ? MOTOR_SAFETY_CAUTION
-          : `Move the compass further from power wiring, twist supply and return wires together, and route them away from the compass. ${MOTOR_SAFETY_CAUTION}`,
+          : `Move the compass further from power wiring, twist supply and return wires together, and route them away from the compass, then repeat the motor test. ${MOTOR_SAFETY_CAUTION}`,
     }),
   });
 }

@@ -8,9 +8,10 @@
  * input). The change at the largest input, as a percentage of the field strength, is the
  * number people compare against a limit.
  *
- * Safety: such a capture spins the motors. Take propellers off, restrain the vehicle,
- * handle the battery as its maker says, keep people clear, and follow local aviation rules
- * and the vehicle maker's manual.
+ * Safety: such a capture spins the motors. Every remedy that advises one carries
+ * MOTOR_SAFETY_CAUTION (motor-safety.ts): propellers off, vehicle restrained, battery handled
+ * as its maker says, people clear, and local rules, the vehicle maker's manual and licensed
+ * practice first.
  */
 import type { CurrentCouplingOptions, CurrentCouplingResult } from "./magnetometer-types";
 import type { Vec3, Vec3Series } from "./types";

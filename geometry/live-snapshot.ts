@@ -35,7 +35,11 @@ export function sliceTable(table: ColumnTable, length: number): ColumnTable {
 /** Fewest samples worth analysing; below it the class sees the points arrive and nothing else. */
 export const LIVE_MIN_SAMPLES = 120;
 
-export function liveSnapshot(table: ColumnTable, position: number, options: AnalyseCaptureOptions & { maxPoints?: number } = {}): LiveSnapshot {
+export function liveSnapshot(
+  table: ColumnTable,
+  position: number,
+  options: AnalyseCaptureOptions & { maxPoints?: number } = {},
+): LiveSnapshot {
   const part = sliceTable(table, position);
   const time = part.columns.time;
   const elapsedS = part.length > 1 && time ? time[part.length - 1] - time[0] : 0;

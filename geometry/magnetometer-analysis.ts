@@ -10,7 +10,7 @@ import { currentCoupling } from "./current-coupling";
 import { measureDip, type AffineCorrection, type DipMeasurement } from "./dip-check";
 import type { MagneticReference } from "./magnetic-reference";
 import type { CouplingInputKind, CurrentCouplingResult, MagModel, MagModelChoice, MagnetometerResult } from "./magnetometer-types";
-import { mountingRotationByName, nearestMountingRotation } from "./mounting-rotations";
+import { IDENTITY_MOUNTING_ID, mountingRotationById, nearestMountingRotation } from "./mounting-rotations";
 import { angleBetweenRotationsDeg } from "./rotation";
 import type { StillPeriod } from "./still-periods";
 import type { ColumnTable, Mat3, Vec3, Vec3Series } from "./types";
@@ -29,7 +29,8 @@ export interface MagnetometerAnalysis {
   residualRms: number | null;
   coverage: { fraction: number; largestGapDeg: number; gapCentre: Vec3; nextOrientation: string } | null;
   refusal: { reason: string; detail: string } | null;
-  declaredRotation: { name: string; matrix: Mat3 };
+  /** The declared mounting: its id ("x-right.z-down"), or "custom" for a matrix that is none of the 48. */
+  declaredRotation: { id: string; matrix: Mat3 };
   /** Rotation against the first compass, with what the declarations imply; null for the first compass. */
   mountingComparison: (MountingComparison & { fromDeclaredDeg: number }) | null;
   dip: DipMeasurement | null;
@@ -51,17 +52,20 @@ export interface MagnetometerAnalysisInput {
   notes: string[];
 }
 
-/** The declared rotation of a compass as a matrix and a name ("none" when not declared). */
-function declaredRotationOf(sensor: string, declared: Record<string, Mat3 | string>): { name: string; matrix: Mat3 } {
+/** The declared mounting of a compass as a matrix and an id (the identity when not declared). */
+function declaredRotationOf(sensor: string, declared: Record<string, Mat3 | string>): { id: string; matrix: Mat3 } {
   const value = declared[sensor];
-  if (value === undefined) return { name: "none", matrix: identity3() };
+  if (value === undefined) return { id: IDENTITY_MOUNTING_ID, matrix: identity3() };
   if (typeof value === "string") {
-    const rotation = mountingRotationByName(value);
-    if (!rotation) throw new RangeError(`"${value}" is not a standard mounting rotation (e.g. "none", "yaw 90", "roll 180")`);
-    return { name: rotation.name, matrix: rotation.matrix };
+    const rotation = mountingRotationById(value);
+    if (!rotation)
+      throw new RangeError(
+        `${sensor}: "${value}" is not one of the 48 mountings (e.g. "x-forward.z-down", "x-right.z-down", "x-forward.z-up")`,
+      );
+    return { id: rotation.id, matrix: rotation.matrix };
   }
   const { nearest, residualDeg } = nearestMountingRotation(value);
-  return { name: residualDeg < 0.5 ? nearest.name : "custom", matrix: value };
+  return { id: residualDeg < 0.5 ? nearest.id : "custom", matrix: value };
 }
 
 /** corrected = matrix · (raw − offset), into fresh arrays (one pass, no per-sample allocation). */
@@ -151,7 +155,7 @@ export function analyseMagnetometers(input: MagnetometerAnalysisInput): Magnetom
         const comparison: MountingComparison = {
           reference: first.sensor,
           expected,
-          expectedName: expectedNearest.residualDeg < 0.5 ? expectedNearest.nearest.name : "custom",
+          expectedId: expectedNearest.residualDeg < 0.5 ? expectedNearest.nearest.id : "custom",
           result,
         };
         mountingComparison = { ...comparison, fromDeclaredDeg: angleBetweenRotationsDeg(result.rotation, expected) };

@@ -4,7 +4,7 @@
  * Where the functions live (all pure, all synchronous):
  * - `calibrateMagnetometer(field, options?)`, `applyCorrection(cal, field)` — calibrate-magnetometer.ts
  * - `relativeRotation(reference, other)` — wahba.ts
- * - `MOUNTING_ROTATIONS`, `nearestMountingRotation(rotation)` — mounting-rotations.ts
+ * - `MOUNTING_ROTATIONS`, `mountingRotationById(id)`, `nearestMountingRotation(rotation)` — mounting-rotations.ts
  * - `currentCoupling(field, input, options)` — current-coupling.ts
  * - `simulateCapture(spec)`, `tableToCsv(table)` — simulator.ts
  * - `describeCells(gridResolution)` — sphere-cells.ts (centre and boundary of every coverage cell)
@@ -142,10 +142,20 @@ export interface CalibrateMagnetometerOptions {
   mountingRotation?: Mat3;
 }
 
-/** A named mounting rotation: `v_reference = matrix · v_other`. */
+/**
+ * One of the 48 axis-aligned mountings (mounting-rotations.ts): `v_reference = matrix · v_module`,
+ * body frame x forward, y right, z down.
+ */
 export interface MountingRotation {
-  name: string;
+  /** Where the module's x and z axes land, e.g. "x-right.z-down". */
+  id: string;
   matrix: Mat3;
+  /** "module x → vehicle right, module z → down". */
+  words: string;
+  /** "x → right, z → down". */
+  shortWords: string;
+  /** Degrees in −180…180 with matrix = Rz(yaw)·Ry(pitch)·Rx(roll). */
+  eulerDeg: { roll: number; pitch: number; yaw: number };
 }
 
 /** Result of `relativeRotation(reference, other)`: reference ≈ rotation · other. */

@@ -16,6 +16,7 @@
  * compass's mounting rotation has been applied.
  */
 import { fromAxisAngle, minimalRotation, toYawPitchRoll } from "./rotation";
+import { sentence, sentences } from "./sentence";
 import type { Vec3 } from "./types";
 import { DEG, mulMat, normalize } from "./vector";
 
@@ -78,17 +79,18 @@ export function suggestAttitude(
 /**
  * A sentence or two saying how to turn the vehicle next, for a coverage gap of angular
  * radius `largestGapDeg` centred on body direction `gapCentre`. `inclinationDeg` is the
- * site's dip, positive down.
+ * site's dip, positive down. The text is whole sentences, each with one final full stop:
+ * callers put it after their own sentences (see `sentences`), never inside one.
  */
 export function describeNextOrientation(gapCentre: Vec3, largestGapDeg: number, inclinationDeg = DEFAULT_INCLINATION_DEG): string {
   if (largestGapDeg < GAP_WORTH_FILLING_DEG) {
-    return `No gap wider than ${GAP_WORTH_FILLING_DEG}° is left: the turns so far cover every direction.`;
+    return sentence(`No gap wider than ${GAP_WORTH_FILLING_DEG}° is left: the turns so far cover every direction`);
   }
   const vertical = inclinationDeg >= 0 ? "below" : "above";
   const aim =
     `Aim ${bodyDirectionWords(gapCentre)} of the vehicle along the Earth's field ` +
     `(towards magnetic north, about ${Math.abs(round5(inclinationDeg))}° ${vertical} the horizon) ` +
-    `to fill a gap about ${Math.round(largestGapDeg)}° in radius.`;
+    `to fill a gap about ${Math.round(largestGapDeg)}° in radius`;
   const attitude = suggestAttitude(gapCentre, inclinationDeg);
   const steps: string[] = [];
   const yaw = round5(attitude.yawDeg);
@@ -97,7 +99,7 @@ export function describeNextOrientation(gapCentre: Vec3, largestGapDeg: number, 
   if (Math.abs(yaw) >= 10) steps.push(`turn the nose about ${Math.abs(yaw)}° to the ${yaw > 0 ? "right (east)" : "left (west)"}`);
   if (Math.abs(pitch) >= 10) steps.push(`pitch the nose ${pitch > 0 ? "up" : "down"} about ${Math.abs(pitch)}°`);
   if (Math.abs(roll) >= 10) steps.push(`roll about ${Math.abs(roll)}° to the ${roll > 0 ? "right" : "left"}`);
-  if (steps.length === 0) return `${aim} Holding it level with the nose towards magnetic north does this.`;
+  if (steps.length === 0) return sentences(aim, "Holding it level with the nose towards magnetic north does this");
   const sequence = steps.length === 1 ? steps[0] : `${steps.slice(0, -1).join(", ")}, then ${steps[steps.length - 1]}`;
-  return `${aim} For example, from level with the nose towards magnetic north: ${sequence}.`;
+  return sentences(aim, `For example, from level with the nose towards magnetic north: ${sequence}`);
 }

@@ -5,7 +5,7 @@
  */
 import { magneticReference } from "./magnetic-reference";
 import type { BodyFace, CaptureSpec, RotationPath, SimulatedMagnetometerSpec, SoftIronLevel } from "./magnetometer-types";
-import { mountingRotationByName } from "./mounting-rotations";
+import { mountingRotationById } from "./mounting-rotations";
 import type { Mat3, Vec3 } from "./types";
 
 export interface ScenarioSpec {
@@ -50,9 +50,9 @@ export const DEFAULT_SCENARIO: ScenarioSpec = {
   steel: null,
 };
 
-function rotation(name: string, what: string): Mat3 {
-  const found = mountingRotationByName(name);
-  if (!found) throw new RangeError(`${what}: "${name}" is not a standard mounting rotation`);
+function rotation(id: string, what: string): Mat3 {
+  const found = mountingRotationById(id);
+  if (!found) throw new RangeError(`${what}: "${id}" is not one of the 48 mountings (e.g. "x-right.z-down")`);
   return found.matrix;
 }
 

@@ -183,9 +183,10 @@ export const THRESHOLDS = {
   "gyro.drift": {
     warnAbove: 0.5,
     failAbove: 2,
-    unit: "°/s",
+    unit: "°/s between holds",
     source: "common practice",
-    basis: "the bias should hold still from one hold to the next; a change means warming up or a hold that moved",
+    basis:
+      "a gyroscope at rest reads the same bias in every still hold of one capture; a bias that changes from hold to hold means the board was still warming up or a hold was not still",
   },
   "gyro.agreement": {
     warnAbove: 5,

@@ -43,6 +43,8 @@ export interface Check {
   explanation: string;
   remedy: string | null;
   source: string;
+  /** Why the limit sits where it does (the threshold's reasoning); absent when no limit applies. */
+  basis?: string;
 }
 
 /**

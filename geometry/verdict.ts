@@ -6,6 +6,7 @@
  * check is to that cause); a failed check counts three times its weight, a warning once.
  * A cause is offered only when at least one of its checks warned or failed.
  */
+import { MOTOR_SAFETY_CAUTION } from "./motor-safety";
 import { slotWords } from "./sensor-slots";
 import type { Check, CheckStatus } from "./types";
 
@@ -42,14 +43,14 @@ export function overallVerdict(checks: Check[]): Verdict {
     counts.pass + counts.warn + counts.fail === 0
       ? "Nothing could be checked in this capture."
       : status === "fail"
-        ? `${counts.fail} check${counts.fail === 1 ? "" : "s"} failed; do not fly on this calibration.`
+        ? `${counts.fail} check${counts.fail === 1 ? "" : "s"} failed; do not operate the vehicle on this calibration.`
         : status === "warn"
           ? `No check failed, ${counts.warn} need${counts.warn === 1 ? "s" : ""} attention.`
           : `All ${counts.pass} checks made are within limits.`;
   return { status, summary, counts };
 }
 
-interface CauseRule {
+export interface CauseRule {
   id: string;
   title: string;
   action: string;
@@ -59,7 +60,8 @@ interface CauseRule {
   accepts?: (check: Check) => boolean;
 }
 
-const CAUSES: CauseRule[] = [
+/** Every cause the diagnosis can offer (exported for tests that read all of their advice). */
+export const CAUSES: readonly CauseRule[] = [
   {
     id: "units",
     title: "Units stated wrongly",
@@ -95,8 +97,7 @@ const CAUSES: CauseRule[] = [
   {
     id: "current",
     title: "Power wiring too close to the compass",
-    action:
-      "Route power wiring away from the compass or move the compass (a mast helps); re-measure with props off and the vehicle restrained.",
+    action: `Route power wiring away from the compass or move the compass (a mast helps), then repeat the motor test. ${MOTOR_SAFETY_CAUTION}`,
     evidence: { "mag.current": 3, "mag.hard-iron": 0.5 },
   },
   {

@@ -21,7 +21,7 @@ export const DETERMINED_RATIO = 0.05;
 
 /**
  * Rotation taking the other compass's corrected readings into the reference compass's frame
- * (reference ≈ rotation · other), the nearest standard mounting rotation and the angle
+ * (reference ≈ rotation · other), the nearest of the 48 axis-aligned mountings and the angle
  * between them. Both series must be corrected (hard and soft iron removed) and sampled at
  * the same instants; samples where either is non-finite or zero are skipped.
  */

@@ -6,7 +6,7 @@ import { getWorkspaceAccess } from "@/lib/data/workspaces";
 import { contextFor, getViewer, type WorkspaceContext } from "@/lib/guard";
 import type { Action } from "@/lib/permissions";
 import type { UserSummary } from "@/lib/data/users";
-import { UserFacingError } from "@/lib/errors";
+import { InvalidFieldError, UserFacingError } from "@/lib/errors";
 
 export function jsonError(status: number, error: string, message: string, extra?: Record<string, unknown>) {
   return NextResponse.json({ error, message, ...extra }, { status });
@@ -52,7 +52,10 @@ async function guarded(work: () => Promise<Response>): Promise<Response> {
   try {
     return await work();
   } catch (error) {
-    if (error instanceof UserFacingError) return jsonError(409, "conflict", error.message, error.field ? { fields: { [error.field]: error.message } } : undefined);
+    if (error instanceof InvalidFieldError)
+      return jsonError(400, "invalid", "Some fields need attention.", { fields: { [error.field]: error.message } });
+    if (error instanceof UserFacingError)
+      return jsonError(409, "conflict", error.message, error.field ? { fields: { [error.field]: error.message } } : undefined);
     console.error("[api] unexpected error", error);
     return jsonError(500, "internal", "Something went wrong on our side.");
   }

@@ -7,3 +7,16 @@ export class UserFacingError extends Error {
     super(message);
   }
 }
+
+/**
+ * Input refused as invalid after the schema passed (a rule that needs the database or the
+ * stored file): answered like a schema failure, 400 with the field named.
+ */
+export class InvalidFieldError extends UserFacingError {
+  constructor(
+    message: string,
+    readonly field: string,
+  ) {
+    super(message, field);
+  }
+}

@@ -74,6 +74,23 @@ export async function readObjectStream(key: string): Promise<Readable> {
   return response.Body as Readable;
 }
 
+/**
+ * The first `bytes` of a stored object (a ranged GET), enough to read a capture's header
+ * without fetching the whole file. Shorter when the object is.
+ */
+export async function readObjectHead(key: string, bytes = 64 * 1024): Promise<Buffer> {
+  const response = await s3().send(new GetObjectCommand({ Bucket: settings.bucket, Key: key, Range: `bytes=0-${bytes - 1}` }));
+  const chunks: Buffer[] = [];
+  let length = 0;
+  for await (const chunk of response.Body as Readable) {
+    chunks.push(Buffer.from(chunk));
+    length += chunk.length;
+    // A store that ignores the range sends the whole object: stop (and close it) once the head is in.
+    if (length >= bytes) break;
+  }
+  return Buffer.concat(chunks).subarray(0, bytes);
+}
+
 export async function readObject(key: string): Promise<Buffer> {
   const chunks: Buffer[] = [];
   for await (const chunk of await readObjectStream(key)) chunks.push(Buffer.from(chunk));

@@ -26,6 +26,9 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare uploadedById: string | null;
   declare title: CreationOptional<string>;
   declare powersMotors: CreationOptional<boolean>;
+  /** When someone confirmed the motor-run cautions for this capture (null: never). */
+  declare safetyAcknowledgedAt: CreationOptional<Date | null>;
+  declare safetyAcknowledgedById: CreationOptional<string | null>;
   declare simulated: CreationOptional<boolean>;
   declare sharedWithStudents: CreationOptional<boolean>;
   declare fileKey: string;
@@ -69,6 +72,8 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         uploadedById: DataTypes.UUID,
         title: { type: DataTypes.STRING(160), allowNull: false, defaultValue: "" },
         powersMotors: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        safetyAcknowledgedAt: DataTypes.DATE,
+        safetyAcknowledgedById: DataTypes.UUID,
         simulated: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         sharedWithStudents: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         fileKey: { type: DataTypes.STRING(300), allowNull: false },

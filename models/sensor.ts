@@ -9,7 +9,7 @@ export class Sensor extends Model<InferAttributes<Sensor>, InferCreationAttribut
   /** A label of the user's choosing: "board", "mast module", … */
   declare label: string;
   declare placement: Placement;
-  /** Name of a standard mounting rotation (geometry/mounting-rotations.ts). */
+  /** Id of one of the 48 mountings, e.g. "x-right.z-down" (geometry/mounting-rotations.ts). */
   declare mountingRotation: string;
   declare units: string;
   /** CSV column names that usually carry this sensor's x, y, z. */
@@ -26,7 +26,7 @@ export class Sensor extends Model<InferAttributes<Sensor>, InferCreationAttribut
         kind: { type: DataTypes.STRING(16), allowNull: false },
         label: { type: DataTypes.STRING(80), allowNull: false },
         placement: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "internal" },
-        mountingRotation: { type: DataTypes.STRING(40), allowNull: false, defaultValue: "none" },
+        mountingRotation: { type: DataTypes.STRING(40), allowNull: false, defaultValue: "x-forward.z-down" },
         units: { type: DataTypes.STRING(16), allowNull: false },
         columnHints: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         createdAt: DataTypes.DATE,

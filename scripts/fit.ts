@@ -3,10 +3,12 @@
  *
  *   npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT]
  *                  [--model auto|sphere|axis|full] [--map col=field,...]
- *                  [--mount compass_b=yaw 90,...] [--seed N]
+ *                  [--mount compass_b=x-right.z-down,...] [--seed N]
  *
  * Prints one JSON document on stdout. A file that cannot be read gets a message naming the
- * row and column on stderr and exit code 2; so do bad arguments. A southern or western
+ * row and column on stderr and exit code 2; so do bad arguments. A file with a motor current
+ * or throttle column is a motor run: the document says `"powersMotors": true` and the full
+ * cautions go to stderr, so stdout stays one JSON document. A southern or western
  * site starts with a minus sign: write it as --site=-33.9,18.4,20.
  */
 import { createReadStream } from "node:fs";
@@ -16,12 +18,14 @@ import type { CaptureUnits } from "@/geometry/capture-units";
 import { parseColumnMap } from "@/geometry/column-names";
 import type { Site } from "@/geometry/magnetic-reference";
 import type { MagModelChoice } from "@/geometry/magnetometer-types";
+import { MOTOR_SAFETY_CAUTION, motorColumnsOf } from "@/geometry/motor-safety";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { familyOfSlot } from "@/geometry/sensor-slots";
 import { parseUnit } from "@/geometry/units";
 import { IngestError, parseCsvStream } from "@/lib/ingest/csv-table";
 
 const USAGE =
-  "usage: npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT[,g,deg/s,ms]] [--model auto|sphere|axis|full] [--map col=field,...] [--mount compass_b=mounting,...] [--seed N]";
+  "usage: npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT[,g,deg/s,ms]] [--model auto|sphere|axis|full] [--map col=field,...] [--mount compass_b=x-right.z-down,...] [--seed N]";
 
 class UsageError extends Error {}
 
@@ -65,6 +69,11 @@ function parseMounts(text: string): Record<string, string> {
     if (familyOfSlot(sensor ?? "") !== "mag" || !rotation) {
       throw new UsageError(`--mount "${pair}" should be compass=mounting, e.g. compass_b=x-right.z-down`);
     }
+    if (!mountingRotationById(rotation)) {
+      throw new UsageError(
+        `--mount "${pair}": "${rotation}" is not one of the 48 mountings; write where the module's x and z axes point, e.g. x-right.z-down, x-forward.z-up, x-forward-right.z-down`,
+      );
+    }
     mounts[sensor] = rotation;
   }
   return mounts;
@@ -74,9 +83,24 @@ function parseMounts(text: string): Record<string, string> {
  * The document printed: the analysis with the verdict and the per-sensor results first, and
  * no accelerometer key when there is none.
  */
-function toDocument(analysis: CaptureAnalysis): Record<string, unknown> {
+function toDocument(analysis: CaptureAnalysis, powersMotors: boolean): Record<string, unknown> {
   const { verdict, verdictSummary, diagnosis, magnetometers, accelerometer, checks, ...rest } = analysis;
-  return { verdict, verdictSummary, diagnosis, magnetometers, ...(accelerometer ? { accelerometer } : {}), checks, ...rest };
+  return {
+    verdict,
+    verdictSummary,
+    ...(powersMotors ? { powersMotors: true } : {}),
+    diagnosis,
+    magnetometers,
+    ...(accelerometer ? { accelerometer } : {}),
+    checks,
+    ...rest,
+  };
+}
+
+/** The cautions for a motor run, naming the column that makes it one. */
+function motorRunWarning(columns: { header: string; field: string }[]): string {
+  const named = columns.map((c) => `"${c.header.replace(/[\u0000-\u001f\u007f]+/g, " ").slice(0, 60)}" (${c.field})`).join(", ");
+  return `Motor run: ${named} ${columns.length === 1 ? "means" : "mean"} the motors were powered during this capture.\n${MOTOR_SAFETY_CAUTION}\n`;
 }
 
 async function main(argv: string[]): Promise<number> {
@@ -125,6 +149,8 @@ async function main(argv: string[]): Promise<number> {
     if (!Number.isInteger(seed)) throw new UsageError(`--seed "${values.seed}" should be a whole number`);
 
     const ingested = await parseCsvStream(createReadStream(file), { map });
+    const motorColumns = motorColumnsOf(ingested.recognition);
+    if (motorColumns.length > 0) process.stderr.write(motorRunWarning(motorColumns));
     const analysis = analyseCapture(ingested.table, {
       site,
       date,
@@ -136,7 +162,7 @@ async function main(argv: string[]): Promise<number> {
     });
     analysis.notes.unshift(...ingested.notes);
     if (ingested.ignoredColumns.length > 0) analysis.notes.push(`Columns not used: ${ingested.ignoredColumns.join(", ")}.`);
-    process.stdout.write(`${JSON.stringify(toDocument(analysis), null, 2)}\n`);
+    process.stdout.write(`${JSON.stringify(toDocument(analysis, motorColumns.length > 0), null, 2)}\n`);
     return 0;
   } catch (error) {
     if (error instanceof IngestError) {

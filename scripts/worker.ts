@@ -9,7 +9,10 @@ async function main() {
   // Test seam for the crash-and-retry test: die abruptly in the middle of one given version's
   // job, as a killed process would.
   const crashVersion = process.env.LOXODROME_TEST_CRASH_VERSION;
-  await startWorker(console.log, crashVersion ? { afterParse: (versionId) => (versionId === crashVersion ? process.exit(137) : undefined) } : {});
+  await startWorker(
+    console.log,
+    crashVersion ? { afterParse: (versionId) => (versionId === crashVersion ? process.exit(137) : undefined) } : {},
+  );
   console.log("[worker] waiting for runs to process");
   const stop = async () => {
     await stopQueue();

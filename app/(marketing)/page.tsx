@@ -41,13 +41,11 @@ export default async function HomePage() {
             <p className="font-mono text-xs uppercase tracking-[0.2em] text-brass-600 dark:text-brass-300">
               Sensor calibration, checked and kept
             </p>
-            <h1 className="text-4xl font-semibold leading-tight sm:text-5xl">
-              Know that a compass is right before the vehicle leaves the ground.
-            </h1>
+            <h1 className="text-4xl font-semibold leading-tight sm:text-5xl">Know that a compass is right before the vehicle goes out.</h1>
             <p className="max-w-xl text-lg text-chart-muted">
               Loxodrome takes the samples logged while a vehicle is turned through every orientation, fits its magnetometers and
               accelerometers on the server, tests each result against published references, explains what is wrong and keeps a signed
-              history per airframe.
+              history per vehicle.
             </p>
             <div className="flex flex-wrap gap-3">
               <Link href={viewer ? "/workspaces" : "/sign-up"} className="btn-primary">
@@ -75,7 +73,8 @@ export default async function HomePage() {
         <section className="mx-auto max-w-6xl px-6 py-10 text-sm text-chart-muted">
           <p>
             Captures that power motors are made with propellers off, the vehicle restrained, the battery handled as its maker says and
-            people clear. Loxodrome defers to local aviation rules, the vehicle maker&apos;s manual and licensed practice.
+            people clear. Loxodrome defers to local rules (aviation rules where the vehicle flies), the vehicle maker&apos;s manual and
+            licensed practice.
           </p>
         </section>
       </main>

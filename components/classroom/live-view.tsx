@@ -114,6 +114,8 @@ export function LiveView({ live, diagnosis, sensorLabels = {}, sphere = true }: 
           diagnosis={diagnosis}
           checks={live.checks}
           sensorLabels={sensorLabels}
+          // A class session simulates a flying vehicle (a mast compass, propellers on its motor runs).
+          vehicleKind="multirotor"
         />
       ) : (
         <BareVerdict live={live} />

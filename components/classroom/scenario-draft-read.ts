@@ -7,7 +7,7 @@
  * (lib/validations/classroom.ts); a unit test holds the two to the same verdicts.
  */
 import type { ScenarioSpec } from "@/geometry/scenario";
-import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import type { Mat3, Vec3 } from "@/geometry/types";
 import type { ScenarioDraft, Triple } from "./scenario-draft";
 
@@ -107,9 +107,9 @@ function readSoftIron(draft: ScenarioDraft, errors: FieldErrors): ScenarioSpec["
   return m;
 }
 
-function readRotation(name: string, key: string, errors: FieldErrors): string {
-  if (!mountingRotationByName(name)) errors[key] = `“${name}” is not a standard mounting rotation.`;
-  return name;
+function readRotation(id: string, key: string, errors: FieldErrors): string {
+  if (!mountingRotationById(id)) errors[key] = `“${id}” is not one of the 48 mountings: choose one from the list.`;
+  return id;
 }
 
 /**

@@ -66,7 +66,7 @@ const matrix = (m: Mat3): [Triple, Triple, Triple] => [triple(m[0]), triple(m[1]
 
 /** Values an optional fault starts from when it is switched on for the first time. */
 const FAULT_STARTS = {
-  secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [4, -3, 6] as Vec3 },
+  secondCompass: { mountingRotation: "x-right.z-down", declaredRotation: "x-forward.z-down", hardIronOffset: [4, -3, 6] as Vec3 },
   currentCoupling: { perAmpMicrotesla: [0.35, -0.1, 0.6] as Vec3, maxAmps: 25 },
   clipLevelMicrotesla: 60,
   holds: { faces: ALL_FACES, wobbleDeg: 6, tiltDeg: 3 },

@@ -1,12 +1,12 @@
 "use client";
 
-import { MOUNTING_ROTATIONS } from "@/geometry/mounting-rotations";
+import { MOUNTING_ROTATIONS, mountingWords } from "@/geometry/mounting-rotations";
 import { SafetyCautions } from "@/components/run/safety-cautions";
 import { ALL_FACES, FACE_LABELS } from "./scenario-draft";
 import { fieldId, FaultSection, NumberBox, TripleBox } from "./scenario-fields";
 import type { SectionProps } from "./scenario-sections";
 
-const ROTATION_NAMES = MOUNTING_ROTATIONS.map((r) => r.name);
+const MOUNTING_OPTIONS = MOUNTING_ROTATIONS.map((r) => ({ id: r.id, words: r.words }));
 
 function RotationSelect({
   name,
@@ -24,8 +24,8 @@ function RotationSelect({
   hint: string;
 }) {
   const id = fieldId(name);
-  // A saved value that is no longer a standard name still shows, so its message makes sense.
-  const names = ROTATION_NAMES.includes(value) ? ROTATION_NAMES : [value, ...ROTATION_NAMES];
+  // A saved value that is none of the 48 mountings still shows, so its message makes sense.
+  const options = MOUNTING_OPTIONS.some((o) => o.id === value) ? MOUNTING_OPTIONS : [{ id: value, words: value }, ...MOUNTING_OPTIONS];
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-medium">
@@ -33,15 +33,15 @@ function RotationSelect({
       </label>
       <select
         id={id}
-        className="field-input font-mono"
+        className="field-input"
         value={value}
         onChange={(event) => onChange(event.target.value)}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : `${id}-hint`}
       >
-        {names.map((n) => (
-          <option key={n} value={n}>
-            {n}
+        {options.map((o) => (
+          <option key={o.id} value={o.id}>
+            {o.words}
           </option>
         ))}
       </select>
@@ -96,7 +96,7 @@ export function FaultSections({
         </div>
         <p className={`text-sm ${against ? "font-medium" : "text-chart-muted"}`}>
           {against
-            ? `Mounted “${second.mountingRotation}” but declared “${second.declaredRotation}”: the module's readings disagree with the board's.`
+            ? `Mounted ${mountingWords(second.mountingRotation)}, but declared ${mountingWords(second.declaredRotation)}: the module's readings disagree with the board's.`
             : "Mounted as declared: the two compasses agree once each is calibrated."}
         </p>
         <TripleBox

@@ -4,6 +4,7 @@
  * instructor chose; the list is only shown to those who manage scenarios.
  */
 import type { ScenarioSpec } from "@/geometry/scenario";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { PATH_LABELS } from "./scenario-draft";
 
 const norm = (v: [number, number, number]) => Math.hypot(v[0], v[1], v[2]);
@@ -17,10 +18,11 @@ export function scenarioFaultWords(spec: ScenarioSpec): string[] {
   if (spec.noiseMicrotesla >= 1) words.push(`noise ${whole(spec.noiseMicrotesla)} µT`);
   if (spec.secondCompass) {
     const { mountingRotation, declaredRotation } = spec.secondCompass;
+    const short = (id: string) => mountingRotationById(id)?.shortWords ?? id;
     words.push(
       mountingRotation === declaredRotation
-        ? `second compass (${mountingRotation})`
-        : `second compass mounted ${mountingRotation}, declared ${declaredRotation}`,
+        ? `second compass (${short(mountingRotation)})`
+        : `second compass mounted (${short(mountingRotation)}), declared (${short(declaredRotation)})`,
     );
   }
   if (spec.currentCoupling)

@@ -3,9 +3,10 @@
 import { useState } from "react";
 import { PendingButton, ProblemMessage, useApiForm } from "@/components/ui/api-form";
 import { SelectField, TextField } from "@/components/ui/field";
-import { MOUNTING_ROTATIONS } from "@/geometry/mounting-rotations";
+import { IDENTITY_MOUNTING_ID, MOUNTING_ROTATIONS, eulerAnglesLine, mountingRotationById } from "@/geometry/mounting-rotations";
 import { apiFetch } from "@/lib/api-client";
 import type { SensorSummary } from "@/lib/data/sensors";
+import { MountingPicture } from "./mounting-picture";
 import { ACCEL_UNITS, FIELD_UNITS, RATE_UNITS, SENSOR_KINDS, SENSOR_KIND_LABELS, type SensorKind } from "@/lib/fleet-terms";
 
 const UNIT_LABELS: Record<string, string> = {
@@ -30,7 +31,10 @@ const PLACEMENT_OPTIONS = [
   { value: "internal", label: "Internal: on the flight controller board" },
   { value: "external", label: "External: a separate module, e.g. on a mast" },
 ];
-const ROTATION_OPTIONS = MOUNTING_ROTATIONS.map((r) => ({ value: r.name, label: r.name }));
+const MOUNTING_OPTIONS = MOUNTING_ROTATIONS.map((r) => ({
+  value: r.id,
+  label: r.id === IDENTITY_MOUNTING_ID ? `aligned with the vehicle: ${r.words}` : r.words,
+}));
 
 /** Add a sensor to a vehicle, or edit one when `sensor` is given. */
 export function SensorForm({
@@ -50,6 +54,12 @@ export function SensorForm({
   const [kind, setKind] = useState<SensorKind>(sensor?.kind ?? "magnetometer");
   const unitChoices = UNITS_BY_KIND[kind];
   const [units, setUnits] = useState(sensor && unitChoices.includes(sensor.units) ? sensor.units : unitChoices[0]);
+  const [mountingId, setMountingId] = useState(sensor?.mountingRotation ?? IDENTITY_MOUNTING_ID);
+  const mounting = mountingRotationById(mountingId);
+  // A stored value that is none of the 48 still shows, so the form opens as saved and says why it is refused.
+  const mountingOptions = mounting
+    ? MOUNTING_OPTIONS
+    : [{ value: mountingId, label: `“${mountingId}” (not one of the 48 mountings)` }, ...MOUNTING_OPTIONS];
   const { onSubmit, pending, problem, fieldError } = useApiForm(async (values) => {
     const body = {
       kind: values.kind,
@@ -108,15 +118,26 @@ export function SensorForm({
           error={fieldError("units")}
         />
       </div>
-      <SelectField
-        id={`${prefix}-mounting`}
-        name="mountingRotation"
-        label="Declared mounting rotation"
-        defaultValue={sensor?.mountingRotation ?? "none"}
-        options={ROTATION_OPTIONS}
-        error={fieldError("mountingRotation")}
-        hint="How the sensor is turned relative to the board (x forward, y right, z down). Declare the rotation it is really mounted at: a compass mounted at another rotation than declared points the heading the wrong way as the vehicle turns, which makes it circle and drift away."
-      />
+      <div className="flex flex-col gap-3 sm:flex-row sm:items-start">
+        <div className="min-w-0 flex-1 space-y-1">
+          <SelectField
+            id={`${prefix}-mounting`}
+            name="mountingRotation"
+            label="Declared mounting"
+            value={mountingId}
+            onChange={(event) => setMountingId(event.target.value)}
+            options={mountingOptions}
+            error={fieldError("mountingRotation")}
+            hint="Where the module's own x and z axes point on the vehicle (vehicle x forward, y right, z down). Declare how it is really fitted: a compass fitted one way and declared another points the heading the wrong way as the vehicle turns, which makes it circle and drift away."
+          />
+          {mounting ? (
+            <p className="text-xs text-chart-muted" data-testid="mounting-euler">
+              {eulerAnglesLine(mounting)}
+            </p>
+          ) : null}
+        </div>
+        <MountingPicture mountingId={mountingId} />
+      </div>
       <TextField
         id={`${prefix}-columns`}
         name="columnHints"

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { SensorForm } from "@/components/fleet/sensor-form";
 import { EmptyState } from "@/components/ui/empty-state";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import type { SensorSummary } from "@/lib/data/sensors";
 import { SENSOR_KIND_LABELS } from "@/lib/fleet-terms";
 import { TableHead } from "@/components/ui/table-head";
@@ -38,9 +39,7 @@ export function SensorList({
           <h2 id="sensors-heading" className="text-lg font-semibold">
             Sensors
           </h2>
-          <p className="text-sm text-chart-muted">
-            Each compass needs its true mounting rotation; the checks compare it with what the data shows.
-          </p>
+          <p className="text-sm text-chart-muted">Each compass needs its true mounting; the checks compare it with what the data shows.</p>
         </div>
         {canEdit && open !== "new" ? (
           <button type="button" className="btn-primary" onClick={() => setOpen("new")}>
@@ -56,20 +55,25 @@ export function SensorList({
       {sensors.length === 0 ? (
         <EmptyState title="No sensors declared">
           {canEdit
-            ? "Add each magnetometer and accelerometer the vehicle logs, with the rotation it is mounted at, before uploading a run."
+            ? "Add each magnetometer and accelerometer the vehicle logs, with how it is mounted, before uploading a run."
             : "Someone who may edit this vehicle declares its sensors here."}
         </EmptyState>
       ) : (
         <div className="mt-4 overflow-x-auto">
           <table className="w-full text-left text-sm" aria-label="Sensors">
-            <TableHead columns={["Label", "Sensor", "Placement", "Mounting rotation", "Units", "Usual columns"]} actions={canEdit} />
+            <TableHead
+              columns={["Label", "Sensor", "Placement", "Mounting (module axis → vehicle)", "Units", "Usual columns"]}
+              actions={canEdit}
+            />
             <tbody className="divide-y divide-chart-rule">
               {sensors.map((s) => (
                 <tr key={s.id} data-testid="sensor-row">
                   <td className="px-6 py-2.5 font-medium">{s.label}</td>
                   <td className="px-4 py-2.5">{SENSOR_KIND_LABELS[s.kind]}</td>
                   <td className="px-4 py-2.5">{s.placement === "external" ? "External" : "Internal"}</td>
-                  <td className="px-4 py-2.5 font-mono text-xs">{s.mountingRotation}</td>
+                  <td className="px-4 py-2.5 text-xs" data-testid="sensor-mounting" data-mounting={s.mountingRotation}>
+                    {mountingRotationById(s.mountingRotation)?.shortWords ?? `“${s.mountingRotation}” (not one of the 48)`}
+                  </td>
                   <td className="px-4 py-2.5 font-mono text-xs">{s.units}</td>
                   <td className="px-4 py-2.5 font-mono text-xs text-chart-muted">
                     {s.columnHints.length ? s.columnHints.join(", ") : "—"}

@@ -22,7 +22,13 @@ export function ReprocessForm({
   const router = useRouter();
   const [model, setModel] = useState<ModelChoice>(currentModel);
   const [siteId, setSiteId] = useState(currentSiteId ?? "");
-  const [state, setState] = useState<{ busy: boolean; message: string | null; error: string | null }>({ busy: false, message: null, error: null });
+  const [state, setState] = useState<{ busy: boolean; message: string | null; error: string | null }>({
+    busy: false,
+    message: null,
+    error: null,
+  });
+  /** The server found motor current or throttle in a file never confirmed: its reason, and the person's confirmation. */
+  const [motorRun, setMotorRun] = useState<{ reason: string; confirmed: boolean } | null>(null);
 
   async function submit(event: React.FormEvent) {
     event.preventDefault();
@@ -30,7 +36,7 @@ export function ReprocessForm({
     try {
       const { version } = await apiFetch<{ version: { id: string; number: number } }>(`${apiBase}/versions`, {
         method: "POST",
-        json: { model, siteId: siteId || null },
+        json: { model, siteId: siteId || null, ...(motorRun?.confirmed ? { safetyAcknowledged: true } : {}) },
       });
       setState({ busy: true, message: `Version ${version.number} queued…`, error: null });
       for (let i = 0; i < 600; i++) {
@@ -42,6 +48,12 @@ export function ReprocessForm({
       router.push(`?version=${version.id}`);
       router.refresh();
     } catch (error) {
+      const reason = error instanceof ApiError ? error.fields.safetyAcknowledged : undefined;
+      if (reason) {
+        setMotorRun({ reason, confirmed: false });
+        setState({ busy: false, message: null, error: null });
+        return;
+      }
       setState({ busy: false, message: null, error: error instanceof ApiError ? error.message : "Could not queue the new version." });
     }
   }
@@ -74,7 +86,25 @@ export function ReprocessForm({
           ))}
         </select>
       </div>
-      <button type="submit" className="btn-quiet" disabled={state.busy}>
+      {motorRun ? (
+        <div className="rounded-lg border border-heed/50 bg-heed-soft p-3 text-xs" data-testid="reprocess-motor-confirmation">
+          <p role="alert">{motorRun.reason}</p>
+          <div className="mt-2 flex items-start gap-2">
+            <input
+              id="reprocess-safety-acknowledged"
+              type="checkbox"
+              className="mt-0.5 h-4 w-4 accent-lox-600"
+              checked={motorRun.confirmed}
+              onChange={(event) => setMotorRun({ ...motorRun, confirmed: event.target.checked })}
+            />
+            <label htmlFor="reprocess-safety-acknowledged" className="font-medium">
+              I confirm this capture was made with propellers off, the vehicle restrained, the battery handled as its maker says and people
+              clear.
+            </label>
+          </div>
+        </div>
+      ) : null}
+      <button type="submit" className="btn-quiet" disabled={state.busy || (motorRun !== null && !motorRun.confirmed)}>
         {state.busy ? (state.message ?? "Working…") : "Process again"}
       </button>
       {state.error ? (

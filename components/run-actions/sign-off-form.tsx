@@ -7,7 +7,17 @@ import { FormMessage, fieldError } from "@/components/ui/form-message";
 import { SubmitButton } from "@/components/ui/submit-button";
 
 /** The technician's sign-off of the version on screen, with an optional comment. */
-export function SignOffForm({ workspace, runId, versionId, verdict }: { workspace: string; runId: string; versionId: string; verdict: string | null }) {
+export function SignOffForm({
+  workspace,
+  runId,
+  versionId,
+  verdict,
+}: {
+  workspace: string;
+  runId: string;
+  versionId: string;
+  verdict: string | null;
+}) {
   const [state, action] = useActionState(signOffRunAction, idle);
   if (state.status === "ok") return <FormMessage state={state} />;
   return (
@@ -25,7 +35,11 @@ export function SignOffForm({ workspace, runId, versionId, verdict }: { workspac
         rows={3}
         maxLength={2000}
         className="field-input"
-        placeholder={verdict === "pass" ? "e.g. Both compasses checked on the strip; cleared for survey work." : "Say why you accept this result despite its findings."}
+        placeholder={
+          verdict === "pass"
+            ? "e.g. Both compasses checked on the strip; cleared for survey work."
+            : "Say why you accept this result despite its findings."
+        }
         aria-invalid={fieldError(state, "comment") ? true : undefined}
       />
       {fieldError(state, "comment") ? <p className="text-xs text-halt">{fieldError(state, "comment")}</p> : null}

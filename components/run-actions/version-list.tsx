@@ -3,7 +3,15 @@ import type { RunVersionSummary } from "@/lib/data/runs";
 import { MODEL_CHOICE_LABELS } from "@/lib/fleet-terms";
 
 /** Every processing of the run, newest first; each keeps its own results. */
-export function VersionList({ versions, currentId, signedOffId }: { versions: RunVersionSummary[]; currentId: string | null; signedOffId: string | null }) {
+export function VersionList({
+  versions,
+  currentId,
+  signedOffId,
+}: {
+  versions: RunVersionSummary[];
+  currentId: string | null;
+  signedOffId: string | null;
+}) {
   if (versions.length < 2) return null;
   return (
     <section className="card p-5" aria-labelledby="versions-heading">
@@ -13,7 +21,11 @@ export function VersionList({ versions, currentId, signedOffId }: { versions: Ru
       <ul className="mt-2 space-y-1 text-sm">
         {versions.map((v) => (
           <li key={v.id}>
-            <Link href={`?version=${v.id}`} className={v.id === currentId ? "font-semibold" : "link"} aria-current={v.id === currentId ? "true" : undefined}>
+            <Link
+              href={`?version=${v.id}`}
+              className={v.id === currentId ? "font-semibold" : "link"}
+              aria-current={v.id === currentId ? "true" : undefined}
+            >
               Version {v.number}
             </Link>{" "}
             <span className="text-chart-muted">

@@ -1,14 +1,16 @@
 import type { Check } from "@/geometry/types";
 import { carriesSafetyCaution, checkAnchor } from "./check-groups";
 import { formatMeasured } from "./format";
+import { limitSourceWords } from "./limit-source";
 import { modelWords } from "./parameter-text";
 import { sensorName } from "./sensor-names";
 import { STATUS_LOOK, StatusChip } from "./status-mark";
 
 /**
  * One check: status, title, sensor, what was measured against the limit, why it matters, what
- * to do next and where the limit comes from. A passed check prints as one short line; advice
- * about running motors is set apart and always shown.
+ * to do next and where the limit comes from (with the reasoning when no publication backs it).
+ * A passed check prints as one short line; advice about running motors is set apart and always
+ * shown.
  */
 export function CheckRow({
   check,
@@ -22,6 +24,7 @@ export function CheckRow({
   const look = STATUS_LOOK[check.status];
   const quiet = check.status === "pass" ? "print:hidden" : "";
   const cautious = carriesSafetyCaution(check.remedy);
+  const limitSource = limitSourceWords(check);
   return (
     <li
       id={checkAnchor(check.id, check.sensor)}
@@ -71,7 +74,9 @@ export function CheckRow({
           </p>
         )
       ) : null}
-      <p className={`mt-2 text-xs text-chart-muted ${quiet} print:mt-0`}>Limit from: {check.source}</p>
+      <p className={`mt-2 text-xs text-chart-muted ${quiet} print:mt-0`} data-testid="limit-source" data-source-kind={limitSource.kind}>
+        {limitSource.text}
+      </p>
     </li>
   );
 }

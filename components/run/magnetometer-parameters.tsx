@@ -1,4 +1,6 @@
+import { MountingPicture } from "@/components/fleet/mounting-picture";
 import type { MagnetometerAnalysis } from "@/geometry/magnetometer-analysis";
+import { eulerAnglesLine, mountingRotationById } from "@/geometry/mounting-rotations";
 import { formatInterval, formatNumber, formatQuantity, formatSigned, percentFrom } from "./format";
 import { modelWords, saturationFindings } from "./parameter-text";
 import { AXES, Figure, MatrixTable, TABLE, TD, TH, TH_AXIS } from "./parameter-parts";
@@ -9,20 +11,28 @@ export interface ExpectedField {
   modelName: string;
 }
 
+/** A mounting id in words; "custom" and anything else that is none of the 48, said so. */
+function mountingText(id: string | undefined): string {
+  if (id === undefined || id === "custom") return "a custom rotation, none of the 48 axis-aligned mountings";
+  return mountingRotationById(id)?.words ?? `“${id}” (none of the 48 mountings)`;
+}
+
 function Mounting({ compass }: { compass: MagnetometerAnalysis }) {
   const comparison = compass.mountingComparison;
+  const closest = comparison ? comparison.result.nearest : null;
   return (
     <div className="space-y-2" data-testid="mounting">
       <h4 className="text-sm font-semibold">Mounting</h4>
       <dl className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4 print:grid-cols-4 print:gap-1">
-        <Figure term="Declared rotation">{compass.declaredRotation?.name ?? "none"}</Figure>
-        {comparison ? (
+        <Figure term="Declared mounting">{mountingText(compass.declaredRotation?.id)}</Figure>
+        {comparison && closest ? (
           <>
             <Figure term="Measured rotation" testId="measured-rotation">
-              against {comparison.reference}, nearest standard: <span className="font-semibold">{comparison.result.nearest.name}</span>,
-              residual <span className="font-mono">{formatQuantity(comparison.result.residualDeg, "°")}</span>
+              against {comparison.reference}, closest mounting: <span className="font-semibold">{closest.words}</span>, residual{" "}
+              <span className="font-mono">{formatQuantity(comparison.result.residualDeg, "°")}</span>
+              {closest.eulerDeg ? <span className="block text-xs text-chart-muted">{eulerAnglesLine(closest)}</span> : null}
             </Figure>
-            <Figure term="What the declarations imply">{comparison.expectedName}</Figure>
+            <Figure term="What the declarations imply">{mountingText(comparison.expectedId)}</Figure>
             <Figure term="Measured from declared" testId="rotation-from-declared">
               <span className="font-mono font-semibold">{formatQuantity(comparison.fromDeclaredDeg, "°")}</span>
             </Figure>
@@ -38,7 +48,15 @@ function Mounting({ compass }: { compass: MagnetometerAnalysis }) {
               ? ""
               : " The directions did not span enough of the sphere to fix all three angles; turn the vehicle further to be sure."}
           </p>
-          <MatrixTable matrix={comparison.result.rotation} caption={`Measured rotation R (${comparison.reference} = R · this compass)`} />
+          <div className="flex flex-wrap items-start gap-4">
+            <MatrixTable matrix={comparison.result.rotation} caption={`Measured rotation R (${comparison.reference} = R · this compass)`} />
+            {closest?.id ? (
+              <figure className="text-xs text-chart-muted">
+                <MountingPicture mountingId={closest.id} />
+                <figcaption>Closest mounting, against {comparison.reference}</figcaption>
+              </figure>
+            ) : null}
+          </div>
         </>
       ) : null}
     </div>

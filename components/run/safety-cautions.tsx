@@ -1,8 +1,13 @@
+import type { VehicleKind } from "@/lib/fleet-terms";
+import { localRulesAtStart } from "@/lib/motor-cautions";
+
 /**
  * The cautions printed on every run whose capture powered the motors (a current-coupling
- * test). Loxodrome reads the log afterwards; it does not make the test safe.
+ * test). Loxodrome reads the log afterwards; it does not make the test safe. The rules named
+ * first depend on the vehicle: aviation rules for one that flies (or may: "other", unknown),
+ * local rules for a rover or a boat.
  */
-export function SafetyCautions({ className = "" }: { className?: string }) {
+export function SafetyCautions({ className = "", vehicleKind }: { className?: string; vehicleKind?: VehicleKind | null }) {
   return (
     <section
       aria-labelledby="run-safety-heading"
@@ -24,7 +29,7 @@ export function SafetyCautions({ className = "" }: { className?: string }) {
         <li>nobody is near the motors, and hands, hair, sleeves and loose things are kept clear.</li>
       </ul>
       <p className="mt-2 text-sm">
-        Local aviation rules, the vehicle maker’s manual and licensed practice take precedence over anything on this page.
+        {localRulesAtStart(vehicleKind)}, the vehicle maker’s manual and licensed practice take precedence over anything on this page.
       </p>
     </section>
   );

@@ -1,14 +1,17 @@
 import type { Check } from "@/geometry/types";
 import type { LikelyCause, VerdictStatus } from "@/geometry/verdict";
+import type { VehicleKind } from "@/lib/fleet-terms";
+import { doNotGoOutWords } from "@/lib/vehicle-words";
 import { checkAnchor, countChecks, parseEvidence, rankCauses } from "./check-groups";
 import { sensorName } from "./sensor-names";
 import { STATUS_LOOK, StatusShape } from "./status-mark";
 
-const HEADLINE: Record<VerdictStatus, string> = {
-  pass: "This calibration can be used",
-  warn: "Usable only after reading the warnings",
-  fail: "Do not fly on this calibration",
-};
+/** The headline under the verdict; a failure is worded for the kind of vehicle. */
+function headline(verdict: VerdictStatus, vehicleKind: VehicleKind | null | undefined): string {
+  if (verdict === "pass") return "This calibration can be used";
+  if (verdict === "warn") return "Usable only after reading the warnings";
+  return doNotGoOutWords(vehicleKind);
+}
 
 const BACKGROUND: Record<VerdictStatus, string> = {
   pass: "border-steady/50 bg-steady-soft",
@@ -24,6 +27,8 @@ export interface VerdictBannerProps {
   checks?: Check[];
   /** Labels by sensor slot ("compass_b" → "mast module"). */
   sensorLabels?: Record<string, string>;
+  /** The kind of vehicle calibrated, for the words of a failure; unknown gets words for any vehicle. */
+  vehicleKind?: VehicleKind | null;
 }
 
 function evidenceText(entry: string, checks: Check[], labels: Record<string, string>): string {
@@ -38,7 +43,7 @@ function evidenceText(entry: string, checks: Check[], labels: Record<string, str
  * engine's one-line summary, a tally of the checks, and the likely causes, most likely first,
  * each with why it is suspected, what to do, and links to the checks behind it.
  */
-export function VerdictBanner({ verdict, verdictSummary, diagnosis, checks = [], sensorLabels = {} }: VerdictBannerProps) {
+export function VerdictBanner({ verdict, verdictSummary, diagnosis, checks = [], sensorLabels = {}, vehicleKind }: VerdictBannerProps) {
   const look = STATUS_LOOK[verdict];
   const counts = countChecks(checks);
   const causes = rankCauses(diagnosis);
@@ -62,7 +67,7 @@ export function VerdictBanner({ verdict, verdictSummary, diagnosis, checks = [],
           <span>{look.word}</span>
         </p>
         <h2 id="verdict-heading" className="text-xl font-semibold print:text-lg">
-          {HEADLINE[verdict]}
+          {headline(verdict, vehicleKind)}
         </h2>
       </div>
       <p className="mt-2 text-sm">{verdictSummary}</p>

@@ -1,5 +1,6 @@
 "use client";
 
+import { IDENTITY_MOUNTING_ID, mountingRotationById } from "@/geometry/mounting-rotations";
 import { slotWords } from "@/geometry/sensor-slots";
 import Link from "next/link";
 import { FieldShell, SelectField, TextField } from "@/components/ui/field";
@@ -47,7 +48,14 @@ interface CaptureDetailsProps {
 }
 
 function sensorOption(sensor: SensorSummary): string {
-  return `${sensor.label} — ${sensor.placement}, mounted ${sensor.mountingRotation === "none" ? "as the board" : sensor.mountingRotation}`;
+  const mounting = mountingRotationById(sensor.mountingRotation);
+  const how =
+    sensor.mountingRotation === IDENTITY_MOUNTING_ID
+      ? "aligned with the vehicle"
+      : mounting
+        ? `mounted ${mounting.shortWords}`
+        : `mounted “${sensor.mountingRotation}” (not one of the 48)`;
+  return `${sensor.label} — ${sensor.placement}, ${how}`;
 }
 
 /** Which vehicle, which of its sensors fill the file's slots, where, when, and which model. */

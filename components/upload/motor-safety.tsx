@@ -1,10 +1,15 @@
 "use client";
 
+import type { VehicleKind } from "@/lib/fleet-terms";
+import { localRulesAtStart } from "@/lib/motor-cautions";
+
 /**
  * The question whether the capture powers motors, and, when it does, the cautions and the
- * confirmation the API requires (`safetyAcknowledged`) before the upload may start.
+ * confirmation the API requires (`safetyAcknowledged`) before the upload may start. The rules
+ * named first follow the chosen vehicle's kind (aviation rules until one is chosen).
  */
 export function MotorSafety({
+  vehicleKind,
   powersMotors,
   fromColumns,
   acknowledged,
@@ -12,6 +17,7 @@ export function MotorSafety({
   onPowersMotors,
   onAcknowledged,
 }: {
+  vehicleKind?: VehicleKind | null;
   powersMotors: boolean;
   /** A current or throttle column is mapped, which settles the question. */
   fromColumns: boolean;
@@ -64,7 +70,8 @@ export function MotorSafety({
             <li>people, hands, hair and loose things clear of the motors.</li>
           </ul>
           <p className="mt-2 text-sm">
-            Local aviation rules, the vehicle maker’s manual and licensed practice come first; Loxodrome only reads the log afterwards.
+            {localRulesAtStart(vehicleKind)}, the vehicle maker’s manual and licensed practice come first; Loxodrome only reads the log
+            afterwards.
           </p>
           <div className="mt-3 flex items-start gap-3">
             <input

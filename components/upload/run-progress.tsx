@@ -4,7 +4,8 @@ import Link from "next/link";
 import { useQuery } from "@tanstack/react-query";
 import { VerdictBadge, isVerdict } from "@/components/ui/verdict-badge";
 import { ApiError, apiFetch } from "@/lib/api-client";
-import { RUN_STATUS_LABELS, type RunStatus, type Verdict } from "@/lib/fleet-terms";
+import { RUN_STATUS_LABELS, type RunStatus, type VehicleKind, type Verdict } from "@/lib/fleet-terms";
+import { doNotGoOutWords } from "@/lib/vehicle-words";
 import { ProgressBar, formatBytes } from "./progress-bar";
 
 /** The answer of GET runs/{id}/status. */
@@ -27,11 +28,12 @@ export interface TransferState {
 
 const STAGES = ["Reading the file", "Fitting", "Saving"] as const;
 
-const VERDICT_SENTENCES: Record<Verdict, string> = {
-  pass: "Every check is within its limits.",
-  warn: "The fit holds, but at least one check needs a look before this calibration is trusted.",
-  fail: "At least one check failed: this calibration should not be flown on as it is.",
-};
+/** The verdict in a sentence; a failure is worded for the kind of vehicle (any vehicle when unknown). */
+function verdictSentence(verdict: Verdict, vehicleKind: VehicleKind | null | undefined): string {
+  if (verdict === "pass") return "Every check is within its limits.";
+  if (verdict === "warn") return "The fit holds, but at least one check needs a look before this calibration is trusted.";
+  return `At least one check failed: ${doNotGoOutWords(vehicleKind).toLowerCase()} as it is.`;
+}
 
 function isTerminal(status: RunStatus | undefined): boolean {
   return status === "done" || status === "failed";
@@ -42,6 +44,7 @@ export function RunProgress({
   slug,
   runId,
   fileName,
+  vehicleKind,
   transfer,
   onRetry,
   onCancel,
@@ -50,6 +53,8 @@ export function RunProgress({
   slug: string;
   runId: string;
   fileName: string | null;
+  /** The kind of the run's vehicle when the page knows it; otherwise read with the run. */
+  vehicleKind?: VehicleKind | null;
   /** Null when the page was reloaded after the file had gone: storage already has it. */
   transfer: TransferState | null;
   onRetry?: () => void;
@@ -68,8 +73,9 @@ export function RunProgress({
   });
   const detail = useQuery({
     queryKey: ["run-detail", slug, runId],
-    queryFn: () => apiFetch<{ run: { fileName: string; fileSize: number; vehicleName: string; title: string } }>(base),
-    enabled: fileName === null,
+    queryFn: () =>
+      apiFetch<{ run: { fileName: string; fileSize: number; vehicleName: string; vehicleKind?: VehicleKind; title: string } }>(base),
+    enabled: fileName === null || !vehicleKind,
   });
 
   const reply = status.data;
@@ -178,7 +184,11 @@ export function RunProgress({
               <VerdictBadge verdict={reply.verdict} />
             </span>
           </div>
-          <p className="mt-2 text-sm">{isVerdict(reply.verdict) ? VERDICT_SENTENCES[reply.verdict] : "No verdict could be given."}</p>
+          <p className="mt-2 text-sm">
+            {isVerdict(reply.verdict)
+              ? verdictSentence(reply.verdict, vehicleKind ?? detail.data?.run.vehicleKind)
+              : "No verdict could be given."}
+          </p>
         </div>
       ) : null}
 

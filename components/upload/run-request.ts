@@ -8,6 +8,8 @@ import type { FilePreview } from "./preview-types";
 
 /** Longest column name the API takes in a mapping. */
 const MAX_COLUMN_NAME = 120;
+/** Longest column name the API takes in `columns`. */
+const MAX_LISTED_COLUMN_NAME = 1000;
 
 /** Error keys the form shows beside a field; any other key from the API goes in the summary. */
 const PLACED_KEYS =
@@ -71,6 +73,8 @@ export function checkRunForm(form: RunFormValues): Record<string, string> {
 /**
  * The body of `POST runs`. Every column's meaning is stated, so the server reads the file as
  * previewed; a left-out column whose name is too long to be a key is not listed (nothing reads it).
+ * The header's names go too (`columns`): the server tells a motor run from them. A header with
+ * a name beyond the API's limit is not sent; the server then reads it from the stored file.
  */
 export function runRequestBody(form: RunFormValues & { file: File; preview: FilePreview }): Record<string, unknown> {
   const columnMapping: ColumnMapping = {};
@@ -87,6 +91,7 @@ export function runRequestBody(form: RunFormValues & { file: File; preview: File
     fileName: form.file.name,
     fileSize: form.file.size,
     columnMapping,
+    ...(form.preview.headers.every((header) => header.length <= MAX_LISTED_COLUMN_NAME) ? { columns: form.preview.headers } : {}),
     units: Object.fromEntries(Object.entries(form.units).filter(([, unit]) => unit !== "")),
     sensorSlots: Object.fromEntries(slots.filter((slot) => form.slotSensors[slot]).map((slot) => [slot, form.slotSensors[slot]])),
     model: form.model,

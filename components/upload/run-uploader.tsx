@@ -148,6 +148,8 @@ export function RunUploader({
     const refusal = await upload.start(runRequestBody({ ...form, file, preview }), file);
     if (refusal instanceof ApiError) {
       setErrors(refusal.fields);
+      // The server found a motor run the form did not: open the cautions, where its reason is shown.
+      if (refusal.fields.safetyAcknowledged) setMotorsTicked(true);
       setFormError([refusal.message, ...unplacedErrors(refusal.fields)].join(" "));
     } else if (refusal) setFormError("The server could not be reached. Check the connection and try again.");
   }
@@ -169,6 +171,8 @@ export function RunUploader({
         slug={slug}
         runId={phase.runId}
         fileName={phase.fileName}
+        // A resumed run (no file name) may belong to another vehicle than the form's: its own kind is read with it.
+        vehicleKind={phase.fileName === null ? null : vehicles.find((v) => v.id === details.vehicleId)?.kind}
         transfer={phase.transfer}
         onRetry={phase.kind === "sending" && file ? () => upload.retry(file) : undefined}
         onCancel={
@@ -235,6 +239,7 @@ export function RunUploader({
             errors={errors}
           />
           <MotorSafety
+            vehicleKind={vehicles.find((v) => v.id === details.vehicleId)?.kind ?? null}
             powersMotors={powersMotors}
             fromColumns={Boolean(review?.hasMotorColumn)}
             acknowledged={acknowledged}

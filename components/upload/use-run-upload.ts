@@ -28,6 +28,8 @@ export function useRunUpload(slug: string, resumeRunId: string | null) {
     resumeRunId ? { kind: "processing", runId: resumeRunId, fileName: null, transfer: null } : { kind: "form" },
   );
   const ticket = useRef<UploadTicket | null>(null);
+  /** The cautions were confirmed in the form: said again when the file is in, where the server checks the file itself. */
+  const acknowledged = useRef(false);
   const transfer = useRef<FileTransfer | null>(null);
 
   // Leaving the page mid-upload would lose the file's way to storage; the browser asks first.
@@ -63,7 +65,10 @@ export function useRunUpload(slug: string, resumeRunId: string | null) {
   async function markUploaded(runId: string, file: File) {
     const sent: TransferState = { sentBytes: file.size, totalBytes: file.size, state: "sent" };
     try {
-      await apiFetch(`${api}/runs/${runId}/uploaded`, { method: "POST" });
+      await apiFetch(`${api}/runs/${runId}/uploaded`, {
+        method: "POST",
+        json: acknowledged.current ? { safetyAcknowledged: true } : undefined,
+      });
     } catch (error) {
       const message = error instanceof ApiError ? error.message : "The server could not be reached to start the processing.";
       setPhase({ kind: "sending", runId, fileName: file.name, transfer: { ...sent, state: "stalled", message }, retry: "confirm" });
@@ -76,6 +81,7 @@ export function useRunUpload(slug: string, resumeRunId: string | null) {
   /** Registers the run and starts sending the file; resolves with the API's refusal, if any. */
   async function start(body: Record<string, unknown>, file: File): Promise<ApiError | Error | null> {
     setPhase({ kind: "creating" });
+    acknowledged.current = body.safetyAcknowledged === true;
     try {
       const created = await apiFetch<CreateRunReply>(`${api}/runs`, { method: "POST", json: body });
       ticket.current = created.upload;

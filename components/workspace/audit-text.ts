@@ -1,6 +1,10 @@
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import type { AuditEntry } from "@/lib/data/audit-events";
 
 type Detail = Record<string, string | number | null | undefined>;
+
+/** A mounting id in short words ("x → right, z → down"); anything else as written. */
+const mounting = (value: Detail[string]) => mountingRotationById(String(value))?.shortWords ?? String(value);
 
 /** One readable line per kind of event; unknown kinds fall back to their name. */
 const LINES: Record<string, (who: string, d: Detail) => string> = {
@@ -19,7 +23,7 @@ const LINES: Record<string, (who: string, d: Detail) => string> = {
   "sensor.added": (who, d) => `${who} added the ${d.kind} “${d.label}”`,
   "sensor.updated": (who, d) =>
     d.mountingTo !== undefined
-      ? `${who} changed the declared mounting of “${d.label}”: ${d.mountingFrom} → ${d.mountingTo}`
+      ? `${who} changed the declared mounting of “${d.label}”: was ${mounting(d.mountingFrom)}; now ${mounting(d.mountingTo)}`
       : `${who} edited the sensor “${d.label}”`,
   "run.created": (who, d) => `${who} started a run on ${d.vehicle} (${d.file})`,
   "run.reprocessed": (who, d) => `${who} processed a run again (version ${d.version}, model ${d.model})`,

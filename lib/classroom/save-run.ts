@@ -1,4 +1,5 @@
 import "server-only";
+import { IDENTITY_MOUNTING_ID } from "@/geometry/mounting-rotations";
 import { tableToCsv } from "@/geometry/simulator";
 import { scenarioTable } from "@/lib/classroom/snapshot-cache";
 import { createRun, markUploaded } from "@/lib/data/runs";
@@ -22,7 +23,7 @@ const SENSORS: Record<string, SensorInput> = {
     kind: "magnetometer",
     label: "simulated compass",
     placement: "internal",
-    mountingRotation: "none",
+    mountingRotation: IDENTITY_MOUNTING_ID,
     units: "uT",
     columnHints: [],
   },
@@ -30,7 +31,7 @@ const SENSORS: Record<string, SensorInput> = {
     kind: "magnetometer",
     label: "simulated mast compass",
     placement: "external",
-    mountingRotation: "none",
+    mountingRotation: IDENTITY_MOUNTING_ID,
     units: "uT",
     columnHints: [],
   },
@@ -38,11 +39,18 @@ const SENSORS: Record<string, SensorInput> = {
     kind: "accelerometer",
     label: "simulated IMU",
     placement: "internal",
-    mountingRotation: "none",
+    mountingRotation: IDENTITY_MOUNTING_ID,
     units: "m/s2",
     columnHints: [],
   },
-  gyro_a: { kind: "gyroscope", label: "simulated IMU", placement: "internal", mountingRotation: "none", units: "rad/s", columnHints: [] },
+  gyro_a: {
+    kind: "gyroscope",
+    label: "simulated IMU",
+    placement: "internal",
+    mountingRotation: IDENTITY_MOUNTING_ID,
+    units: "rad/s",
+    columnHints: [],
+  },
 };
 
 /** Find a row, or create it; when the create fails because another request made it first, use theirs. */
@@ -66,7 +74,8 @@ async function classroomVehicle(workspaceId: string, actorId: string): Promise<s
       (
         await createVehicle(workspaceId, actorId, {
           name: CLASSROOM_VEHICLE,
-          kind: "other",
+          // The scenarios simulate a flying vehicle (a mast compass, propellers on its motor runs).
+          kind: "multirotor",
           airframe: "Simulated sensors for class sessions",
           serialTag: "",
           customer: "",

@@ -17,7 +17,10 @@ export async function signOffRun(workspaceId: string, actorId: string, runId: st
     const version = await models.RunVersion.findByPk(versionId, { transaction });
     if (!version || version.status !== "done") throw new UserFacingError("Only a finished run can be signed off.");
     if (run.signedOffVersionId === versionId) throw new UserFacingError("This version is already signed off.");
-    await run.update({ signedOffAt: new Date(), signedOffById: actorId, signOffComment: comment || null, signedOffVersionId: versionId }, { transaction });
+    await run.update(
+      { signedOffAt: new Date(), signedOffById: actorId, signOffComment: comment || null, signedOffVersionId: versionId },
+      { transaction },
+    );
     await recordAudit(
       {
         workspaceId,

@@ -1,13 +1,18 @@
 import "server-only";
 import { Op, type Order, type WhereOptions } from "sequelize";
+import { recogniseColumns } from "@/geometry/column-names";
+import { motorColumnsOf, type MotorField } from "@/geometry/motor-safety";
 import { compareSlots, familyOfSlot } from "@/geometry/sensor-slots";
-import { UserFacingError } from "@/lib/errors";
+import type { CaptureField } from "@/geometry/types";
+import { InvalidFieldError, UserFacingError } from "@/lib/errors";
 import { recordAudit } from "@/lib/audit";
 import { db } from "@/lib/db";
-import { UPLOAD_LIMITS, type ModelChoice, type RunStatus } from "@/lib/fleet-terms";
+import { UPLOAD_LIMITS, type ModelChoice, type RunStatus, type VehicleKind } from "@/lib/fleet-terms";
+import { readHeaderCells } from "@/lib/ingest/csv-table";
 import { enqueueVersion } from "@/lib/jobs/queue";
 import { snapshotOf } from "@/lib/data/sites";
-import { objectSize, presignUpload } from "@/lib/storage";
+import { motorRunConfirmationMessage } from "@/lib/motor-cautions";
+import { objectSize, presignUpload, readObjectHead } from "@/lib/storage";
 import type { RunListQuery } from "@/lib/validations/runs";
 import type { Run, RunVersion, Sensor, User, Vehicle } from "@/models";
 import type { RunError, SiteSnapshot } from "@/models/run";
@@ -62,6 +67,8 @@ export interface RunVersionSummary {
 }
 
 export interface RunDetail extends RunSummary {
+  /** The kind of the run's vehicle, for words that depend on it ("Do not sail on this calibration"). */
+  vehicleKind: VehicleKind;
   columnMapping: Record<string, string>;
   units: Record<string, string>;
   fileSha256: string | null;
@@ -123,7 +130,7 @@ function toVersion(v: RunVersion): RunVersionSummary {
 function includes() {
   const { Vehicle: VehicleModel, User: UserModel } = db().models;
   return [
-    { model: VehicleModel, as: "vehicle", attributes: ["id", "name"] },
+    { model: VehicleModel, as: "vehicle", attributes: ["id", "name", "kind"] },
     { model: UserModel, as: "uploadedBy", attributes: ["id", "name"] },
     { model: UserModel, as: "signedOffBy", attributes: ["id", "name"] },
   ];
@@ -141,13 +148,49 @@ export interface CreateRunInput {
   sensorSlots: Record<string, string>;
   model: ModelChoice;
   powersMotors: boolean;
+  /** The file's column names, when the caller knows them: recognised here to tell a motor run. */
+  columns?: string[];
+  /** The person confirmed the motor-run cautions. */
+  safetyAcknowledged?: boolean;
+  /** Made by the simulator: no motor ran, so no confirmation is asked (the cautions still show). */
   simulated?: boolean;
   sharedWithStudents?: boolean;
 }
 
+/** Enough of a stored capture to read its header line. */
+const HEADER_PEEK_BYTES = 64 * 1024;
+
+type ColumnMap = Record<string, CaptureField | "ignore">;
+type MotorColumn = { header: string; field: MotorField };
+
+/** The motor current and throttle columns among a file's column names, read as the worker will read them. */
+function motorColumnsIn(headers: string[], columnMapping: Record<string, string>): MotorColumn[] {
+  return motorColumnsOf(recogniseColumns(headers, columnMapping as ColumnMap));
+}
+
+/** The motor columns of the file in storage, from its header line (a ranged read of its head). */
+async function motorColumnsInStoredFile(run: Run): Promise<MotorColumn[]> {
+  const head = await readObjectHead(run.fileKey, HEADER_PEEK_BYTES);
+  const headers = readHeaderCells(new TextDecoder("utf-8").decode(head));
+  // A header that cannot be read is the worker's to report, with its row and reason.
+  return headers ? motorColumnsIn(headers, run.columnMapping) : [];
+}
+
+/**
+ * The stored file is a motor run: unless the cautions were confirmed (before, or with this
+ * request), refuse with the column that makes it one. Simulated runs spun no motor.
+ */
+async function requireMotorConfirmation(run: Run, found: MotorColumn[], confirmedNow: boolean): Promise<void> {
+  if (found.length === 0 || run.safetyAcknowledgedAt || confirmedNow || run.simulated) return;
+  const vehicle = await db().models.Vehicle.findByPk(run.vehicleId, { attributes: ["kind"], paranoid: false });
+  throw new InvalidFieldError(motorRunConfirmationMessage(found, vehicle?.kind), "safetyAcknowledged");
+}
+
 /**
  * Register a run and hand back a presigned URL the file goes to, straight to object storage.
- * Every id in the input must belong to this workspace (and sensors to this vehicle).
+ * Every id in the input must belong to this workspace (and sensors to this vehicle). The
+ * server decides whether it is a motor run: a current or throttle column among `columns`
+ * makes it one whatever `powersMotors` says, and a motor run needs `safetyAcknowledged`.
  */
 export async function createRun(
   workspaceId: string,
@@ -169,6 +212,17 @@ export async function createRun(
     if (sensor.kind !== expected)
       throw new UserFacingError(`Slot ${slot} needs a ${expected}; "${sensor.label}" is a ${sensor.kind}.`, "sensorSlots");
   }
+  const declaredMotorColumns = input.columns ? motorColumnsIn(input.columns, input.columnMapping) : [];
+  const powersMotors = input.powersMotors || declaredMotorColumns.length > 0;
+  const acknowledged = input.safetyAcknowledged === true;
+  if (powersMotors && !acknowledged && !input.simulated) {
+    throw new InvalidFieldError(
+      declaredMotorColumns.length
+        ? motorRunConfirmationMessage(declaredMotorColumns, vehicle.kind)
+        : "This capture powers motors: confirm the safety cautions first.",
+      "safetyAcknowledged",
+    );
+  }
   const safeName = input.fileName.replace(/[^A-Za-z0-9._-]+/g, "_").slice(-120);
   const run = await sequelize.transaction(async (transaction) => {
     const created = await models.Run.create(
@@ -180,7 +234,9 @@ export async function createRun(
         capturedOn: input.capturedOn,
         uploadedById: actorId,
         title: input.title,
-        powersMotors: input.powersMotors,
+        powersMotors,
+        safetyAcknowledgedAt: acknowledged ? new Date() : null,
+        safetyAcknowledgedById: acknowledged ? actorId : null,
         simulated: input.simulated ?? false,
         sharedWithStudents: input.sharedWithStudents ?? false,
         fileKey: "pending",
@@ -204,7 +260,7 @@ export async function createRun(
         action: "run.created",
         targetType: "run",
         targetId: created.id,
-        detail: { vehicle: vehicle.name, file: input.fileName },
+        detail: { vehicle: vehicle.name, file: input.fileName, powersMotors, safetyAcknowledged: acknowledged },
       },
       transaction,
     );
@@ -216,9 +272,16 @@ export async function createRun(
 
 /**
  * The browser (or a script) says the file is in storage: check it is there and within limits,
- * then queue version 1 for processing.
+ * read its header (the stored file decides whether it is a motor run, whatever was declared),
+ * then queue version 1 for processing. A motor run never confirmed is refused and stays
+ * waiting for its file; `safetyAcknowledged` confirms it with this call.
  */
-export async function markUploaded(workspaceId: string, actorId: string, runId: string): Promise<RunSummary> {
+export async function markUploaded(
+  workspaceId: string,
+  actorId: string,
+  runId: string,
+  options: { safetyAcknowledged?: boolean } = {},
+): Promise<RunSummary> {
   const { sequelize, models } = db();
   const run = await models.Run.findOne({ where: { workspaceId, id: runId } });
   if (!run) throw new UserFacingError("Run not found.");
@@ -233,13 +296,34 @@ export async function markUploaded(workspaceId: string, actorId: string, runId: 
     });
     throw new UserFacingError("The file is larger than the limit.");
   }
+  const motorColumns = await motorColumnsInStoredFile(run);
+  const confirmedNow = options.safetyAcknowledged === true;
+  await requireMotorConfirmation(run, motorColumns, confirmedNow);
   const version = await sequelize.transaction(async (transaction) => {
-    await run.update({ status: "uploaded", fileSize: size, progress: 0, stage: "Queued" }, { transaction });
+    const fresh = await models.Run.findByPk(run.id, { transaction, lock: true });
+    if (!fresh || fresh.status !== "awaiting-file") throw new UserFacingError("This run already has its file.");
+    const confirming = confirmedNow && !fresh.safetyAcknowledgedAt;
+    await fresh.update(
+      {
+        status: "uploaded",
+        fileSize: size,
+        progress: 0,
+        stage: "Queued",
+        ...(motorColumns.length ? { powersMotors: true } : {}),
+        ...(confirming ? { safetyAcknowledgedAt: new Date(), safetyAcknowledgedById: actorId } : {}),
+      },
+      { transaction },
+    );
+    if (confirming)
+      await recordAudit(
+        { workspaceId, actorId, action: "run.safety-acknowledged", targetType: "run", targetId: run.id, detail: { file: run.fileName } },
+        transaction,
+      );
     const created = await models.RunVersion.create(
       { runId: run.id, number: 1, modelChoice: run.modelChoice, site: run.site, requestedById: actorId },
       { transaction },
     );
-    await run.update({ currentVersionId: created.id }, { transaction });
+    await fresh.update({ currentVersionId: created.id }, { transaction });
     return created;
   });
   await enqueueVersion(version.id);
@@ -251,7 +335,7 @@ export async function reprocessRun(
   workspaceId: string,
   actorId: string,
   runId: string,
-  input: { model: ModelChoice; siteId?: string | null },
+  input: { model: ModelChoice; siteId?: string | null; safetyAcknowledged?: boolean },
 ): Promise<RunVersionSummary> {
   const { sequelize, models } = db();
   const run = await models.Run.findOne({ where: { workspaceId, id: runId } });
@@ -263,6 +347,10 @@ export async function reprocessRun(
     if (input.siteId && !row) throw new UserFacingError("That site is not in this workspace.", "siteId");
     site = row ? snapshotOf(row) : null;
   }
+  // The stored file decides again: a motor run processed before this check existed is confirmed now.
+  const motorColumns = await motorColumnsInStoredFile(run);
+  const confirming = input.safetyAcknowledged === true && !run.safetyAcknowledgedAt;
+  await requireMotorConfirmation(run, motorColumns, input.safetyAcknowledged === true);
   const version = await sequelize.transaction(async (transaction) => {
     const last = (await models.RunVersion.max("number", { where: { runId }, transaction })) as number | null;
     const created = await models.RunVersion.create(
@@ -270,7 +358,15 @@ export async function reprocessRun(
       { transaction },
     );
     await run.update(
-      { status: "uploaded", progress: 0, stage: `Queued (version ${created.number})`, error: null, currentVersionId: created.id },
+      {
+        status: "uploaded",
+        progress: 0,
+        stage: `Queued (version ${created.number})`,
+        error: null,
+        currentVersionId: created.id,
+        ...(motorColumns.length ? { powersMotors: true } : {}),
+        ...(confirming ? { safetyAcknowledgedAt: new Date(), safetyAcknowledgedById: actorId } : {}),
+      },
       { transaction },
     );
     await recordAudit(
@@ -280,7 +376,12 @@ export async function reprocessRun(
         action: "run.reprocessed",
         targetType: "run",
         targetId: runId,
-        detail: { version: created.number, model: input.model, site: site?.name ?? null },
+        detail: {
+          version: created.number,
+          model: input.model,
+          site: site?.name ?? null,
+          ...(confirming ? { safetyAcknowledged: true } : {}),
+        },
       },
       transaction,
     );
@@ -305,6 +406,7 @@ export async function getRunDetail(workspaceId: string, id: string): Promise<Run
   ]);
   return {
     ...toSummary(run),
+    vehicleKind: run.vehicle?.kind ?? "other",
     columnMapping: run.columnMapping,
     units: run.units,
     fileSha256: run.fileSha256 ?? null,

@@ -259,6 +259,21 @@ function delimiterOrThrow(head: string): string {
   );
 }
 
+/**
+ * The column names of a file from the head of its text (the first tens of kilobytes are
+ * plenty), split with the delimiter the full reader would pick and trimmed as it trims them.
+ * Null when no header line or no delimiter can be found: the full read says why.
+ */
+export function readHeaderCells(head: string): string[] | null {
+  const text = stripBom(head);
+  const delimiter = detectDelimiter(text.slice(0, PEEK_CHARS));
+  if (delimiter === null) return null;
+  const line = text.split(/\r\n|\n|\r/).find((candidate) => !isSkippableLine(candidate));
+  if (line === undefined) return null;
+  const cells = Papa.parse<string[]>(line, { delimiter, skipEmptyLines: false }).data[0] ?? [];
+  return cells.length >= 2 ? cells.map((cell) => cell.trim()) : null;
+}
+
 /** The chunked form of Papa.parse, which its typings only declare for files and downloads. */
 interface ChunkedParseConfig {
   delimiter: string;

@@ -2,6 +2,7 @@ import crypto from "node:crypto";
 import { Transform } from "node:stream";
 import { analyseCapture } from "@/geometry/analyse-capture";
 import { convertCapture, type CaptureUnits } from "@/geometry/capture-units";
+import { hasMotorFields } from "@/geometry/motor-safety";
 import { buildRunView } from "@/geometry/run-view";
 import { resolveThresholds } from "@/geometry/thresholds";
 import { parseUnitForKind, type QuantityKind } from "@/geometry/units";
@@ -151,6 +152,10 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       { status: "done", results, samplesKey, verdict: analysis.verdict, error: null, finishedAt: new Date() },
       { transaction },
     );
+    // A table with motor current or throttle is a motor run, however it got here (older data, an earlier check missed).
+    if (hasMotorFields(table.fields) && !run.powersMotors) {
+      await models.Run.update({ powersMotors: true }, { where: { id: run.id }, transaction, paranoid: false });
+    }
     const current = await models.Run.findByPk(run.id, { transaction, lock: true, paranoid: false });
     if (current && current.currentVersionId === versionId) {
       await current.update(

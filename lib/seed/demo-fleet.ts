@@ -1,6 +1,6 @@
 import { magneticReference } from "@/geometry/magnetic-reference";
 import type { CaptureSpec } from "@/geometry/magnetometer-types";
-import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { IDENTITY_MOUNTING_ID, mountingRotationById } from "@/geometry/mounting-rotations";
 import { simulateCapture, tableToCsv } from "@/geometry/simulator";
 import type { Mat3 } from "@/geometry/types";
 import { createRun, markUploaded } from "@/lib/data/runs";
@@ -42,7 +42,12 @@ const SITES = [
   },
 ];
 
-const mag = (label: string, placement: "internal" | "external", mountingRotation = "none", columnHints: string[] = []): SensorInput => ({
+const mag = (
+  label: string,
+  placement: "internal" | "external",
+  mountingRotation = IDENTITY_MOUNTING_ID,
+  columnHints: string[] = [],
+): SensorInput => ({
   kind: "magnetometer",
   label,
   placement,
@@ -54,7 +59,7 @@ const accel: SensorInput = {
   kind: "accelerometer",
   label: "board IMU",
   placement: "internal",
-  mountingRotation: "none",
+  mountingRotation: IDENTITY_MOUNTING_ID,
   units: "m/s2",
   columnHints: [],
 };
@@ -62,7 +67,7 @@ const gyro: SensorInput = {
   kind: "gyroscope",
   label: "board IMU",
   placement: "internal",
-  mountingRotation: "none",
+  mountingRotation: IDENTITY_MOUNTING_ID,
   units: "rad/s",
   columnHints: [],
 };
@@ -70,10 +75,10 @@ const gyro: SensorInput = {
 const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
   {
     vehicle: {
-      name: "Heron 1",
+      name: "Pellowin 1",
       kind: "multirotor",
       airframe: "Quad, 550 mm carbon arms, mast GNSS",
-      serialTag: "QSC-H1",
+      serialTag: "QSC-P1",
       customer: "Quillmere Survey",
       notes: "Primary mapping quad.",
     },
@@ -81,10 +86,10 @@ const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
   },
   {
     vehicle: {
-      name: "Heron 2",
+      name: "Pellowin 2",
       kind: "multirotor",
       airframe: "Quad, 550 mm carbon arms, mast GNSS",
-      serialTag: "QSC-H2",
+      serialTag: "QSC-P2",
       customer: "Quillmere Survey",
       notes: "",
     },
@@ -92,10 +97,10 @@ const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
   },
   {
     vehicle: {
-      name: "Skylark",
+      name: "Orrinbeck",
       kind: "vtol",
       airframe: "Tilt-rotor VTOL, 2.1 m span",
-      serialTag: "QSC-SK",
+      serialTag: "QSC-OB",
       customer: "Quillmere Survey",
       notes: "Mast module refitted after a hard landing.",
     },
@@ -103,10 +108,10 @@ const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
   },
   {
     vehicle: {
-      name: "Marsh rover",
+      name: "Clodhaver",
       kind: "rover",
       airframe: "Four-wheel skid-steer, aluminium chassis",
-      serialTag: "QSC-MR",
+      serialTag: "QSC-CH",
       customer: "Saltmarsh works",
       notes: "",
     },
@@ -114,10 +119,10 @@ const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
   },
   {
     vehicle: {
-      name: "Kelp",
+      name: "Tidmarrow",
       kind: "boat",
       airframe: "Survey catamaran, 1.4 m",
-      serialTag: "QSC-KB",
+      serialTag: "QSC-TM",
       customer: "Tarn harbour trust",
       notes: "",
     },
@@ -126,7 +131,7 @@ const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
 ];
 
 const SIX = ["+z", "-z", "+x", "-x", "+y", "-y"] as const;
-const rotation = (name: string): Mat3 => mountingRotationByName(name)!.matrix;
+const rotation = (id: string): Mat3 => mountingRotationById(id)!.matrix;
 
 interface DemoRun {
   vehicle: string;
@@ -141,7 +146,7 @@ interface DemoRun {
 
 const RUNS: DemoRun[] = [
   {
-    vehicle: "Heron 1",
+    vehicle: "Pellowin 1",
     site: "Quillmere strip",
     capturedOn: "2026-09-14",
     title: "Annual check: both compasses",
@@ -159,7 +164,7 @@ const RUNS: DemoRun[] = [
     sharedWithStudents: true,
   },
   {
-    vehicle: "Heron 2",
+    vehicle: "Pellowin 2",
     site: "Quillmere strip",
     capturedOn: "2026-10-02",
     title: "Rushed turn: never turned over",
@@ -168,7 +173,7 @@ const RUNS: DemoRun[] = [
     sharedWithStudents: true,
   },
   {
-    vehicle: "Skylark",
+    vehicle: "Orrinbeck",
     site: "Quillmere strip",
     capturedOn: "2026-10-19",
     title: "After mast refit",
@@ -178,15 +183,18 @@ const RUNS: DemoRun[] = [
       accel_a: "accelerometer:board IMU",
       gyro_a: "gyroscope:board IMU",
     },
-    // The refitted module sits turned 90° in yaw; it is still declared as not rotated.
+    // The refitted module sits a quarter turn clockwise (seen from above); it is still declared aligned with the vehicle.
     spec: {
       seed: 103,
-      magnetometers: [{ hardIronOffset: [5, -9, 12] }, { mountingRotation: rotation("yaw 90"), declaredRotation: rotation("none") }],
+      magnetometers: [
+        { hardIronOffset: [5, -9, 12] },
+        { mountingRotation: rotation("x-right.z-down"), declaredRotation: rotation(IDENTITY_MOUNTING_ID) },
+      ],
     },
     sharedWithStudents: true,
   },
   {
-    vehicle: "Marsh rover",
+    vehicle: "Clodhaver",
     site: "Saltmarsh depot",
     capturedOn: "2026-10-23",
     title: "In the yard, beside the container",
@@ -194,7 +202,7 @@ const RUNS: DemoRun[] = [
     spec: { seed: 104, steel: { distanceM: 0.7, strength: 6 }, magnetometers: [{ hardIronOffset: [-20, 4, 9] }] },
   },
   {
-    vehicle: "Heron 1",
+    vehicle: "Pellowin 1",
     site: "Quillmere strip",
     capturedOn: "2026-10-30",
     title: "Motor current test (props off, restrained)",
@@ -209,7 +217,7 @@ const RUNS: DemoRun[] = [
     powersMotors: true,
   },
   {
-    vehicle: "Heron 2",
+    vehicle: "Pellowin 2",
     site: "Quillmere strip",
     capturedOn: "2026-11-06",
     title: "Six-face hold, shaky hands",
@@ -222,7 +230,7 @@ const RUNS: DemoRun[] = [
     },
   },
   {
-    vehicle: "Kelp",
+    vehicle: "Tidmarrow",
     site: "Tarn jetty",
     capturedOn: "2026-11-20",
     title: "Season start",

@@ -52,8 +52,11 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
     name: "Mast module turned on its mount",
     description: "Two compasses: the board's and an external module on the mast. Compare them as the capture plays.",
     answer:
-      "The mast module is mounted turned 90° in yaw, but declared as not rotated. The two compasses disagree by a right angle — the classic cause of a vehicle that circles and drifts away. Declare the true mounting rotation, or turn the module back.",
-    spec: { ...BASE, secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [-3, 4, 2] } },
+      "The mast module is mounted a quarter turn clockwise seen from above (module x → vehicle right, module z → down), but declared aligned with the vehicle (module x → vehicle forward, module z → down). The two compasses disagree by a right angle — the classic cause of a vehicle that circles and drifts away. Declare the true mounting, or turn the module back.",
+    spec: {
+      ...BASE,
+      secondCompass: { mountingRotation: "x-right.z-down", declaredRotation: "x-forward.z-down", hardIronOffset: [-3, 4, 2] },
+    },
     lesson: { verdict: "fail", checks: ["mag.mounting"] },
   },
   {
@@ -69,7 +72,7 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
     description:
       "After the tumble, a motor run logs the field with the motor current (simulated: propellers off, vehicle restrained, battery handled per its maker, people clear).",
     answer:
-      "Current coupling: the field the compass reads moves with the motor current, because power wiring runs close to it. Move the compass (a mast) or the wiring, or twist the supply pair. Real motor tests are made with propellers off, the vehicle restrained, the battery handled per its maker and people clear, under local aviation rules and the maker's manual.",
+      "Current coupling: the field the compass reads moves with the motor current, because power wiring runs close to it. Move the compass (a mast) or the wiring, or twist the supply pair. Real motor tests are made with propellers off, the vehicle restrained, the battery handled per its maker and people clear, under local rules (aviation rules where the vehicle flies), the maker's manual and licensed practice.",
     spec: { ...BASE, currentCoupling: { perAmpMicrotesla: [0.35, 0.1, -0.3], maxAmps: 35 } },
     lesson: { verdict: "fail", checks: ["mag.current"] },
   },

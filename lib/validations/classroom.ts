@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { MOUNTING_ROTATIONS } from "@/geometry/mounting-rotations";
+import { MOUNTING_IDS } from "@/geometry/mounting-rotations";
 import type { ScenarioSpec } from "@/geometry/scenario";
 import { DEFAULT_STEP_SECONDS, SPEED_RANGE } from "@/lib/classroom/playback-clock";
 
@@ -19,8 +19,7 @@ const vec3 = (label: string, limit: number) =>
     error: `${label} needs three numbers (x, y, z).`,
   });
 
-const ROTATION_NAMES = MOUNTING_ROTATIONS.map((r) => r.name) as [string, ...string[]];
-const rotationName = (label: string) => z.enum(ROTATION_NAMES, { error: `${label}: choose one of the standard mounting rotations.` });
+const mountingId = (label: string) => z.enum(MOUNTING_IDS, { error: `${label}: choose one of the 48 mountings, e.g. x-right.z-down.` });
 
 const BODY_FACES = ["+x", "-x", "+y", "-y", "+z", "-z"] as const;
 export const ROTATION_PATHS = ["full", "yaw-only", "upper-half", "partial"] as const;
@@ -79,8 +78,8 @@ export const scenarioSpecSchema = z
     softIron: z.union([z.enum(SOFT_IRON_CHOICES), softIronMatrix], { error: "Choose none, mild, strong or a 3×3 soft-iron matrix." }),
     secondCompass: z
       .object({
-        mountingRotation: rotationName("Second compass mounting"),
-        declaredRotation: rotationName("Second compass declaration"),
+        mountingRotation: mountingId("Second compass mounting"),
+        declaredRotation: mountingId("Second compass declaration"),
         hardIronOffset: vec3("Second compass hard-iron offset", 600),
       })
       .nullable(),

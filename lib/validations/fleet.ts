@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { ACCEL_UNITS, FIELD_UNITS, MODEL_CHOICES, PLACEMENTS, RATE_UNITS, SENSOR_KINDS, VEHICLE_KINDS } from "@/lib/fleet-terms";
-import { MOUNTING_ROTATIONS } from "@/geometry/mounting-rotations";
+import { IDENTITY_MOUNTING_ID, MOUNTING_IDS } from "@/geometry/mounting-rotations";
 
 const text = (max: number, label: string) => z.string().trim().max(max, `${label}: use at most ${max} characters.`);
 const optionalText = (max: number, label: string) => text(max, label).optional().default("");
@@ -33,7 +33,6 @@ export const vehicleUpdateSchema = vehicleSchema.extend({
   archived: z.union([z.boolean(), z.enum(["on", "true", "false"]).transform((v) => v !== "false")]).optional(),
 });
 
-const ROTATION_NAMES = MOUNTING_ROTATIONS.map((r) => r.name) as [string, ...string[]];
 const ALL_UNITS = [...new Set([...FIELD_UNITS, ...ACCEL_UNITS, ...RATE_UNITS])] as [string, ...string[]];
 
 export const sensorSchema = z
@@ -41,7 +40,9 @@ export const sensorSchema = z
     kind: z.enum(SENSOR_KINDS, { error: "Choose the kind of sensor." }),
     label: text(80, "Label").min(1, "Give the sensor a label, such as “board” or “mast module”."),
     placement: z.enum(PLACEMENTS, { error: "Choose internal or external." }).default("internal"),
-    mountingRotation: z.enum(ROTATION_NAMES, { error: "Choose one of the standard mounting rotations." }).default("none"),
+    mountingRotation: z
+      .enum(MOUNTING_IDS, { error: "mountingRotation: choose one of the 48 mountings, e.g. x-right.z-down." })
+      .default(IDENTITY_MOUNTING_ID),
     units: z.enum(ALL_UNITS, { error: "Choose the units the sensor logs in." }),
     columnHints: z
       .union([

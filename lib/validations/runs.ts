@@ -53,10 +53,25 @@ export const createRunSchema = z
     sensorSlots: z
       .record(z.string().regex(SLOT_PATTERN, "Slots are named like compass_a, compass_b, accel_a, gyro_a."), z.uuid())
       .default({}),
+    /**
+     * The file's column names, in order, as its header line gives them. When sent, the server
+     * recognises them (with columnMapping) and a current or throttle column makes the run a
+     * motor run, whatever powersMotors says.
+     */
+    columns: z
+      .array(
+        z.string({ error: "columns: each column name must be text." }).max(1000, "columns: a column name is at most 1000 characters."),
+        {
+          error: "columns must be a list of the file's column names.",
+        },
+      )
+      .max(UPLOAD_LIMITS.maxColumns, `columns: the file may have at most ${UPLOAD_LIMITS.maxColumns} columns.`)
+      .optional(),
     model: z.enum(MODEL_CHOICES).default("auto"),
-    powersMotors: z.boolean().default(false),
+    /** The caller says the motors ran; the server also decides this from the columns and the stored file. */
+    powersMotors: z.boolean({ error: "powersMotors must be true or false." }).default(false),
     /** Required when the capture powers motors: the person confirmed the cautions. */
-    safetyAcknowledged: z.boolean().default(false),
+    safetyAcknowledged: z.boolean({ error: "safetyAcknowledged must be true or false." }).default(false),
   })
   .refine((r) => !r.powersMotors || r.safetyAcknowledged, {
     path: ["safetyAcknowledged"],
@@ -66,6 +81,13 @@ export const createRunSchema = z
 export const reprocessSchema = z.object({
   model: z.enum(MODEL_CHOICES).default("auto"),
   siteId: z.uuid().nullable().optional(),
+  /** Needed when the stored file logs motor current or throttle and the run was never confirmed. */
+  safetyAcknowledged: z.boolean({ error: "safetyAcknowledged must be true or false." }).default(false),
+});
+
+/** The optional body of POST …/runs/{id}/uploaded: the confirmation, when the stored file turns out to be a motor run. */
+export const markUploadedSchema = z.object({
+  safetyAcknowledged: z.boolean({ error: "safetyAcknowledged must be true or false." }).default(false),
 });
 
 export const runListQuerySchema = z.object({

@@ -316,8 +316,11 @@ test("the scenario builder checks each field, previews at once, saves, duplicate
 
   // A second compass mounted against its declaration, and custom soft iron with one bad entry.
   await page.getByRole("checkbox", { name: "A second compass" }).check();
-  await page.getByLabel("Mounted at", { exact: true }).selectOption("yaw 90");
-  await page.getByLabel("Declared as", { exact: true }).selectOption("none");
+  await page.getByLabel("Mounted at", { exact: true }).selectOption("x-right.z-down");
+  await page.getByLabel("Declared as", { exact: true }).selectOption("x-forward.z-down");
+  await expect
+    .poll(() => page.getByTestId("scenario-form").textContent())
+    .toContain("Mounted module x → vehicle right, module z → down, but declared module x → vehicle forward, module z → down");
   await page.getByText("Custom 3×3", { exact: true }).click();
   await page.getByLabel("Soft iron, row 1, column 2", { exact: true }).fill("0.9");
   await expect.poll(() => page.getByTestId("scenario-form").textContent()).toMatch(/Row 1, column 2: Give a value between -0.5 and 0.5/);
@@ -333,7 +336,7 @@ test("the scenario builder checks each field, previews at once, saves, duplicate
   await page.getByLabel("Name", { exact: true }).fill("Full turn on the saltmarsh");
   await page
     .getByLabel("The answer: what is wrong, in words")
-    .fill("Never turned over, and the mast module is mounted yaw 90 but declared as not rotated.");
+    .fill("Never turned over, and the mast module is mounted with its x to the right but declared aligned with the vehicle.");
   await page.getByRole("button", { name: "Save the new scenario" }).click();
   await expect.poll(() => page.locator("#field-name-error").textContent()).toMatch(/.+/);
   await page.screenshot({ path: artefactPath("classroom-builder.png"), fullPage: true });
@@ -341,7 +344,7 @@ test("the scenario builder checks each field, previews at once, saves, duplicate
   await page.getByRole("button", { name: "Save the new scenario" }).click();
   await page.waitForURL(/\/classroom\/scenarios\/[0-9a-f-]{36}\?saved=1$/);
   await expect.poll(() => page.getByRole("status").filter({ hasText: "Scenario saved." }).count()).toBe(1);
-  expect(await page.getByLabel("Mounted at", { exact: true }).inputValue()).toBe("yaw 90");
+  expect(await page.getByLabel("Mounted at", { exact: true }).inputValue()).toBe("x-right.z-down");
 
   // Duplicate, then delete the copy.
   await page.getByRole("button", { name: "Duplicate Half a sphere and a turned module" }).click();

@@ -1,7 +1,8 @@
 /**
  * The fleet pages end to end in headless Chromium against the real server and PostgreSQL:
  * a fresh owner adds vehicles (an empty name is refused next to its field first), opens one,
- * declares a magnetometer mounted at "yaw 90", adds a site, filters the fleet table by text and
+ * declares a magnetometer mounted with its x axis to the vehicle's right (x-right.z-down), with
+ * the picture of its axes following the choice, adds a site, filters the fleet table by text and
  * kind with the filters kept in the address, and creates, uses and revokes an API token.
  */
 import { afterAll, beforeAll, expect, inject, test } from "vitest";
@@ -70,17 +71,17 @@ test("the fleet starts empty and says what to do; an empty name is refused next 
   await expect.poll(() => page.locator("#vehicle-new-name-error").textContent()).toBe("Give the vehicle a name.");
   expect(await form.getByLabel("Name", { exact: true }).getAttribute("aria-invalid")).toBe("true");
 
-  await addVehicle("Heron hexacopter", "multirotor", "HX-0042");
-  await addVehicle("Kestrel survey wing", "fixed-wing", "KW-0007");
-  await addVehicle("Tern quad", "multirotor", "TQ-0013");
+  await addVehicle("Pindlecote hexacopter", "multirotor", "HX-0042");
+  await addVehicle("Vossenby survey wing", "fixed-wing", "VS-0007");
+  await addVehicle("Tesselhorn quad", "multirotor", "TQ-0013");
   await expect.poll(() => vehicleRows().count()).toBe(3);
 });
 
-test("a vehicle page declares a magnetometer mounted at yaw 90", async () => {
-  await page.getByRole("link", { name: "Heron hexacopter", exact: true }).click();
+test("a vehicle page declares a magnetometer mounted x-right.z-down, its picture following the select", async () => {
+  await page.getByRole("link", { name: "Pindlecote hexacopter", exact: true }).click();
   await page.waitForURL(new RegExp(`/w/${slug}/vehicles/[0-9a-f-]{36}$`));
   const vehicleUrl = page.url();
-  expect(await page.getByRole("heading", { level: 2, name: /Heron hexacopter/ }).count()).toBe(1);
+  expect(await page.getByRole("heading", { level: 2, name: /Pindlecote hexacopter/ }).count()).toBe(1);
   await expect.poll(() => page.getByTestId("empty-state").filter({ hasText: "No sensors declared" }).count()).toBe(1);
   // Its runs, none yet, with a way to start one for this vehicle.
   await expect.poll(() => page.getByTestId("empty-state").filter({ hasText: "No runs yet" }).count()).toBe(1);
@@ -94,7 +95,12 @@ test("a vehicle page declares a magnetometer mounted at yaw 90", async () => {
   await form.getByLabel("Sensor", { exact: true }).selectOption("magnetometer");
   await form.getByLabel("Label", { exact: true }).fill("mast module");
   await form.getByLabel("Placement").selectOption("external");
-  await form.getByLabel("Declared mounting rotation").selectOption("yaw 90");
+  const picture = form.getByTestId("mounting-picture");
+  expect(await picture.getAttribute("data-mounting")).toBe("x-forward.z-down");
+  await form.getByLabel("Declared mounting", { exact: true }).selectOption("x-right.z-down");
+  await expect.poll(() => picture.getAttribute("aria-label")).toContain("module x → vehicle right, module z → down");
+  expect(await picture.locator('[data-axis="module-x"]').getAttribute("data-points")).toBe("right");
+  expect(await form.getByTestId("mounting-euler").textContent()).toBe("Euler angles (roll, pitch, yaw): 0°, 0°, 90°");
   await form.getByLabel("Units it logs in").selectOption("mG");
   await form.getByLabel("Usual CSV columns").fill("ext_mx, ext_my, ext_mz");
   await form.getByRole("button", { name: "Add the sensor" }).click();
@@ -104,13 +110,13 @@ test("a vehicle page declares a magnetometer mounted at yaw 90", async () => {
   const text = await row.textContent();
   expect(text).toContain("Magnetometer");
   expect(text).toContain("External");
-  expect(text).toContain("yaw 90");
+  expect(text).toContain("x → right, z → down");
   expect(text).toContain("ext_mx, ext_my, ext_mz");
   await page.screenshot({ path: artefactPath("vehicle.png"), fullPage: true });
 
   // It is stored, not only drawn: a reload shows the same declaration.
   await page.reload();
-  await expect.poll(() => page.getByTestId("sensor-row").filter({ hasText: "yaw 90" }).count()).toBe(1);
+  await expect.poll(() => page.getByTestId("sensor-row").filter({ hasText: "x → right, z → down" }).count()).toBe(1);
 
   // Someone else's or a made-up vehicle is a plain 404.
   const missing = await page.goto(`${baseUrl}/w/${slug}/vehicles/00000000-0000-4000-8000-000000000000`);
@@ -139,30 +145,30 @@ test("the fleet table filters by text and kind, and the filters survive a reload
   await page.goto(fleetUrl);
   await expect.poll(() => vehicleRows().count()).toBe(3);
 
-  await page.getByLabel("Search", { exact: true }).fill("heron");
+  await page.getByLabel("Search", { exact: true }).fill("pindlecote");
   await expect.poll(() => vehicleRows().count()).toBe(1);
-  expect(await vehicleRows().first().textContent()).toContain("Heron hexacopter");
-  await expect.poll(() => new URL(page.url()).searchParams.get("q")).toBe("heron");
+  expect(await vehicleRows().first().textContent()).toContain("Pindlecote hexacopter");
+  await expect.poll(() => new URL(page.url()).searchParams.get("q")).toBe("pindlecote");
   await page.reload();
   await expect.poll(() => vehicleRows().count()).toBe(1);
-  expect(await page.getByLabel("Search", { exact: true }).inputValue()).toBe("heron");
+  expect(await page.getByLabel("Search", { exact: true }).inputValue()).toBe("pindlecote");
 
   await page.getByLabel("Search", { exact: true }).fill("");
   await expect.poll(() => vehicleRows().count()).toBe(3);
   await page.getByLabel("Kind", { exact: true }).selectOption("fixed-wing");
   await expect.poll(() => vehicleRows().count()).toBe(1);
-  expect(await vehicleRows().first().textContent()).toContain("Kestrel survey wing");
+  expect(await vehicleRows().first().textContent()).toContain("Vossenby survey wing");
   await page.getByLabel("Kind", { exact: true }).selectOption("multirotor");
   await expect.poll(() => vehicleRows().count()).toBe(2);
 
   // Sorted by the server: by name A to Z first, a click on the header turns it round.
-  await expect.poll(() => vehicleRows().first().textContent()).toContain("Heron hexacopter");
+  await expect.poll(() => vehicleRows().first().textContent()).toContain("Pindlecote hexacopter");
   await page.getByRole("button", { name: /^Name/ }).click();
-  await expect.poll(() => vehicleRows().first().textContent()).toContain("Tern quad");
+  await expect.poll(() => vehicleRows().first().textContent()).toContain("Tesselhorn quad");
   expect(new URL(page.url()).searchParams.get("order")).toBe("desc");
   await page.screenshot({ path: artefactPath("fleet.png"), fullPage: true });
 
-  await page.getByLabel("Search", { exact: true }).fill("kestrel");
+  await page.getByLabel("Search", { exact: true }).fill("vossenby");
   await expect.poll(() => page.getByTestId("empty-state").textContent()).toContain("No vehicle matches these filters");
   expect(await vehicleRows().count()).toBe(0);
   await page.getByRole("button", { name: "Clear the filters" }).click();
@@ -179,7 +185,7 @@ test("the runs page is empty and offers to start a run", async () => {
 
 test("a run registered by a script shows up, is followed while it is processed, and filters by verdict", async () => {
   const api = `${baseUrl}/api/workspaces/${slug}`;
-  const vehicles = (await (await page.request.get(`${api}/vehicles?search=tern`)).json()) as { items: { id: string }[] };
+  const vehicles = (await (await page.request.get(`${api}/vehicles?search=tesselhorn`)).json()) as { items: { id: string }[] };
   const sites = (await (await page.request.get(`${api}/sites`)).json()) as { sites: { id: string }[] };
   const csv = tableToCsv(simulateCapture({ seed: 31, pathSeconds: 30 }).table);
   const created = await page.request.post(`${api}/runs`, {
@@ -188,7 +194,7 @@ test("a run registered by a script shows up, is followed while it is processed, 
       siteId: sites.sites[0].id,
       capturedOn: "2026-05-04",
       title: "Pre-season check",
-      fileName: "tern-tumble.csv",
+      fileName: "tesselhorn-tumble.csv",
       fileSize: Buffer.byteLength(csv),
     },
   });
@@ -222,8 +228,8 @@ test("a run registered by a script shows up, is followed while it is processed, 
   // The vehicle's own page lists it too; another vehicle's does not.
   await page.goto(`${baseUrl}/w/${slug}/vehicles/${vehicles.items[0].id}`);
   await expect.poll(() => page.getByTestId("run-row").filter({ hasText: "Pre-season check" }).count()).toBe(1);
-  const heron = (await (await page.request.get(`${api}/vehicles?search=heron`)).json()) as { items: { id: string }[] };
-  await page.goto(`${baseUrl}/w/${slug}/vehicles/${heron.items[0].id}`);
+  const pindlecote = (await (await page.request.get(`${api}/vehicles?search=pindlecote`)).json()) as { items: { id: string }[] };
+  await page.goto(`${baseUrl}/w/${slug}/vehicles/${pindlecote.items[0].id}`);
   await expect.poll(() => page.getByTestId("empty-state").filter({ hasText: "No runs yet" }).count()).toBe(1);
   expect(await page.getByTestId("run-row").count()).toBe(0);
 });

@@ -11,7 +11,7 @@ import { createRequire } from "node:module";
 import { afterAll, beforeAll, expect, inject, test } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { magneticReference } from "@/geometry/magnetic-reference";
-import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { simulateCapture, tableToCsv } from "@/geometry/simulator";
 import { closeDb, db } from "@/lib/db";
 import { createRun, markUploaded } from "@/lib/data/runs";
@@ -49,7 +49,7 @@ beforeAll(async () => {
     notes: "",
   });
   const vehicle = await createVehicle(workspace.id, owner.id, {
-    name: "Gannet 3",
+    name: "Hollisett 3",
     kind: "multirotor",
     airframe: "Quad",
     serialTag: "G3",
@@ -60,7 +60,7 @@ beforeAll(async () => {
     kind: "magnetometer",
     label: "board",
     placement: "internal",
-    mountingRotation: "none",
+    mountingRotation: "x-forward.z-down",
     units: "uT",
     columnHints: [],
   });
@@ -68,7 +68,7 @@ beforeAll(async () => {
     kind: "magnetometer",
     label: "mast module",
     placement: "external",
-    mountingRotation: "none",
+    mountingRotation: "x-forward.z-down",
     units: "uT",
     columnHints: [],
   });
@@ -80,7 +80,10 @@ beforeAll(async () => {
       holds: { faces: ["+z", "-z", "+x", "-x", "+y", "-y"] },
       magnetometers: [
         { hardIronOffset: [9, -5, 14], softIron: "mild" },
-        { mountingRotation: mountingRotationByName("yaw 90")!.matrix, declaredRotation: mountingRotationByName("none")!.matrix },
+        {
+          mountingRotation: mountingRotationById("x-right.z-down")!.matrix,
+          declaredRotation: mountingRotationById("x-forward.z-down")!.matrix,
+        },
       ],
     }).table,
   );
@@ -170,9 +173,12 @@ test("a technician reads the run, turns the view, exports and signs off", async 
 
   // The verdict, the failing mounting check (the mast module is turned 90° against its declaration), the parameters.
   const checks = page.getByTestId("check-list");
-  await expect.poll(() => checks.textContent(), { timeout: 15_000 }).toMatch(/yaw 90/);
+  await expect.poll(() => checks.textContent(), { timeout: 15_000 }).toMatch(/closest mounting: module x → vehicle right, module z → down/);
   const parameters = page.getByTestId("parameters-table");
   expect(await parameters.textContent()).toMatch(/offset/i);
+  expect(await parameters.getByTestId("measured-rotation").last().textContent()).toMatch(
+    /closest mounting: module x → vehicle right, module z → down[\s\S]*Euler angles \(roll, pitch, yaw\): 0°, 0°, 90°/,
+  );
 
   // Exports: each downloads and parses.
   for (const format of ["correction-json", "correction-csv", "c-header", "results-json"]) {
@@ -190,18 +196,18 @@ test("a technician reads the run, turns the view, exports and signs off", async 
       expect(rows[0]).toEqual(["slot", "label", "quantity", "row", "column", "value", "unit"]);
       expect(Number(rows.find((r) => r[0] === "compass_a" && r[2] === "offset" && r[3] === "x")![5])).toBeCloseTo(9, 0);
     } else if (format === "c-header") {
-      expect(text).toMatch(/static const float lox_mag0_offset\[3\] = \{ [-\d.ef, ]+ \};/);
-      expect(text).toMatch(/lox_mag0_matrix\[3\]\[3\]/);
+      expect(text).toMatch(/static const float lox_compass_a_offset\[3\] = \{ [-\d.ef, ]+ \};/);
+      expect(text).toMatch(/lox_compass_a_matrix\[3\]\[3\]/);
     } else {
       expect(JSON.parse(text).results.checks.length).toBeGreaterThan(5);
     }
   }
 
   // Sign off with a comment; the stamp replaces the form, and the logbook records it.
-  await page.getByLabel("Comment for the record").fill("Mast module to be re-declared as yaw 90 before flight.");
+  await page.getByLabel("Comment for the record").fill("Mast module to be re-declared as x-right.z-down before flight.");
   await page.getByRole("button", { name: "Sign off this version" }).click();
   // The page re-renders with the stamp in place of the form, and keeps it after a reload.
-  await expect.poll(() => page.getByTestId("signed-off").textContent(), { timeout: 15_000 }).toMatch(/re-declared as yaw 90/);
+  await expect.poll(() => page.getByTestId("signed-off").textContent(), { timeout: 15_000 }).toMatch(/re-declared as x-right\.z-down/);
   await page.reload();
   await expect.poll(() => page.getByTestId("signed-off").textContent(), { timeout: 15_000 }).toMatch(/Signed off by/);
   expect(await page.getByRole("button", { name: "Sign off this version" }).count()).toBe(0);

@@ -144,23 +144,41 @@ beforeAll(async () => {
   expect(workspace.status()).toBe(201);
 
   ids.vehicle = (
-    await post<{ vehicle: { id: string } }>("/vehicles", { name: "Heron hexacopter", kind: "multirotor", serialTag: "HX-07" })
+    await post<{ vehicle: { id: string } }>("/vehicles", { name: "Pindlecote hexacopter", kind: "multirotor", serialTag: "HX-07" })
   ).vehicle.id;
-  await post("/vehicles", { name: "Kestrel rover", kind: "rover" });
+  await post("/vehicles", { name: "Vossenby rover", kind: "rover" });
   const sensor = async (body: Record<string, unknown>) =>
     (await post<{ sensor: { id: string } }>(`/vehicles/${ids.vehicle}/sensors`, body)).sensor.id;
   // The board compass is listed first, but the mast module names the file's columns: the hint must win over the order.
-  ids.boardMag = await sensor({ kind: "magnetometer", label: "board", placement: "internal", mountingRotation: "none", units: "uT" });
+  ids.boardMag = await sensor({
+    kind: "magnetometer",
+    label: "board",
+    placement: "internal",
+    mountingRotation: "x-forward.z-down",
+    units: "uT",
+  });
   ids.mastMag = await sensor({
     kind: "magnetometer",
     label: "mast module",
     placement: "external",
-    mountingRotation: "none",
+    mountingRotation: "x-forward.z-down",
     units: "uT",
     columnHints: ["compass_a.x", "compass_a.y", "compass_a.z"],
   });
-  ids.accel = await sensor({ kind: "accelerometer", label: "board", placement: "internal", mountingRotation: "none", units: "m/s2" });
-  ids.gyro = await sensor({ kind: "gyroscope", label: "board", placement: "internal", mountingRotation: "none", units: "rad/s" });
+  ids.accel = await sensor({
+    kind: "accelerometer",
+    label: "board",
+    placement: "internal",
+    mountingRotation: "x-forward.z-down",
+    units: "m/s2",
+  });
+  ids.gyro = await sensor({
+    kind: "gyroscope",
+    label: "board",
+    placement: "internal",
+    mountingRotation: "x-forward.z-down",
+    units: "rad/s",
+  });
   ids.site = (await post<{ site: { id: string } }>("/sites", site)).site.id;
 });
 
@@ -250,7 +268,7 @@ describe("the upload page", () => {
     const row = page.getByTestId("run-row").filter({ hasText: `Corrie tumble ${tag}` });
     await row.waitFor();
     expect(await row.locator("[data-verdict]").getAttribute("data-verdict")).toBe("pass");
-    expect(await row.textContent()).toContain("Heron hexacopter");
+    expect(await row.textContent()).toContain("Pindlecote hexacopter");
     expect(await row.textContent()).toContain(site.name);
   });
 
@@ -419,6 +437,8 @@ describe("the upload page", () => {
       vehicleId: ids.vehicle,
       siteId: null,
       fileName: "corrie-motors.csv",
+      // The header's names go too: the server tells a motor run from them itself.
+      columns: fields.map((f) => names[f]),
       powersMotors: true,
       safetyAcknowledged: true,
       model: "auto",

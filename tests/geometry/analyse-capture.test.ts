@@ -55,10 +55,11 @@ describe("analyseCapture", () => {
   });
 
   test.each([
-    { label: "yaw 90", rotation: rotationZ(90), name: "yaw 90" },
-    { label: "yaw 45", rotation: rotationZ(45), name: "yaw 45" },
-    { label: "yaw 180", rotation: rotationZ(180), name: "yaw 180" },
-  ])("a second compass mounted $label against its declaration fails the mounting check", ({ rotation, name }) => {
+    // Words by hand: Rz(θ)·e_x = (cos θ, sin θ, 0), and e_z stays down.
+    { label: "a quarter turn about z", rotation: rotationZ(90), words: "module x → vehicle right, module z → down" },
+    { label: "45° about z", rotation: rotationZ(45), words: "module x → vehicle forward-right, module z → down" },
+    { label: "a half turn about z", rotation: rotationZ(180), words: "module x → vehicle back, module z → down" },
+  ])("a second compass mounted $label against its declaration fails the mounting check", ({ rotation, words }) => {
     const { analysis } = analyse({
       magnetometers: [
         {},
@@ -74,15 +75,16 @@ describe("analyseCapture", () => {
     });
     const mounting = find(analysis.checks, "mag.mounting", "compass_b");
     expect(mounting.status).toBe("fail");
-    expect(mounting.explanation).toContain(`as if rotated "${name}"`);
-    expect(mounting.remedy).toContain(`"${name}"`);
+    expect(mounting.explanation).toContain(`closest mounting: ${words} (`);
+    expect(mounting.explanation).toContain("Declared: module x → vehicle forward, module z → down.");
+    expect(mounting.remedy).toContain(`the data point to ${words}`);
     expect(analysis.diagnosis[0].id).toBe("mounting");
   });
 
   test.each([
     // The module sits at v_body = Rz(90°)·v_sensor and logs raw sensor axes.
-    { label: "the true rotation passes", declared: "yaw 90", status: "pass" },
-    { label: "the opposite rotation fails", declared: "yaw 270", status: "fail" },
+    { label: "the true mounting passes", declared: "x-right.z-down", status: "pass" },
+    { label: "the opposite quarter turn fails", declared: "x-left.z-down", status: "fail" },
   ])("declaring the module's rotation to the analysis: $label", ({ declared, status }) => {
     const { analysis } = analyse(
       {
@@ -101,7 +103,7 @@ describe("analyseCapture", () => {
       { mountingRotations: { compass_b: declared } },
     );
     expect(find(analysis.checks, "mag.mounting", "compass_b").status).toBe(status);
-    expect(analysis.magnetometers[1].declaredRotation.name).toBe(declared);
+    expect(analysis.magnetometers[1].declaredRotation.id).toBe(declared);
   });
 
   test.each([

@@ -132,11 +132,11 @@ describe("calibrateMagnetometer", () => {
 
   test("a compass logging in its own axes: the mounting rotation puts coverage and its gap in body axes", () => {
     // Truth: upper-half path leaves the body's underside (+z) uncovered; the compass is mounted
-    // roll 180 (sensor z up) and logs in its own axes, so unrotated the gap would sit at sensor −z.
-    const roll180 = fromYawPitchRoll(0, 0, 180);
-    const { field } = capture({ seed: 12, path: "upper-half", magnetometers: [{ mountingRotation: roll180, loggedFrame: "sensor" }] });
+    // x-forward.z-up (turned over about x, sensor z up) and logs in its own axes, so unrotated the gap would sit at sensor −z.
+    const turnedOver = fromYawPitchRoll(0, 0, 180);
+    const { field } = capture({ seed: 12, path: "upper-half", magnetometers: [{ mountingRotation: turnedOver, loggedFrame: "sensor" }] });
     const sensorAxes = expectCalibration(calibrateMagnetometer(field, { bootstrap: false }));
-    const bodyAxes = expectCalibration(calibrateMagnetometer(field, { bootstrap: false, mountingRotation: roll180 }));
+    const bodyAxes = expectCalibration(calibrateMagnetometer(field, { bootstrap: false, mountingRotation: turnedOver }));
     expect(angleBetweenDeg(sensorAxes.coverage.gapCentre, [0, 0, -1])).toBeLessThan(10);
     expect(angleBetweenDeg(bodyAxes.coverage.gapCentre, [0, 0, 1])).toBeLessThan(10);
     expect(bodyAxes.coverage.nextOrientation).toMatch(/underside/);

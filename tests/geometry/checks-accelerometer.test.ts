@@ -51,6 +51,9 @@ describe("gyroscopeChecks", () => {
     );
     expect(checks.map((c) => c.id)).toEqual(["gyro.bias", "gyro.noise", "gyro.drift"]);
     expect(checks.map((c) => c.status)).toEqual(statuses);
+    // The third check measures how far the bias moves from hold to hold, and says so.
+    expect(checks[2]).toMatchObject({ title: "Gyroscope bias change between holds", unit: "°/s between holds" });
+    expect(checks[2].explanation).toContain("each of the 3 still holds");
   });
 
   test("no still period: bias and noise skipped", () => {

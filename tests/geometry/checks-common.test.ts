@@ -28,6 +28,7 @@ describe("gradedCheck", () => {
       explanation: `it is ${status}`,
       remedy: status === "pass" ? null : "do something",
       source: "common practice",
+      basis: thresholds["mag.residual"].basis,
     });
   });
 
@@ -54,6 +55,7 @@ describe("skippedCheck", () => {
       explanation: "no site",
       remedy: "give a site",
       sensor: "compass_b",
+      basis: thresholds["mag.dip"].basis,
     });
   });
 
@@ -63,6 +65,7 @@ describe("skippedCheck", () => {
       unit: null,
       source: "not applicable",
     });
+    expect(skippedCheck(thresholds, "something.else", "x", undefined, "why")).not.toHaveProperty("basis");
   });
 });
 

@@ -16,7 +16,7 @@ import type {
   MountingRotation,
   RelativeRotationResult,
 } from "@/geometry/magnetometer-types";
-import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { resolveThresholds } from "@/geometry/thresholds";
 import type { Mat3 } from "@/geometry/types";
 
@@ -122,30 +122,39 @@ describe("dipCheck", () => {
 });
 
 describe("mountingCheck", () => {
-  const yaw90 = mountingRotationByName("yaw 90")!;
-  const none = mountingRotationByName("none")!;
+  const right = mountingRotationById("x-right.z-down")!;
+  const aligned = mountingRotationById("x-forward.z-down")!;
   function result(rotation: Mat3, nearest: MountingRotation, determined = true): RelativeRotationResult {
     return { rotation, nearest, residualDeg: 0, rmsAngleDeg: 0.5, determined, samplesUsed: 1000 };
   }
 
-  test("a compass that behaves as yaw 90 but is declared none fails and names both", () => {
+  test("a compass that behaves as x-right.z-down but is declared aligned fails and names both in words", () => {
     const check = mountingCheck(
       "compass_b",
-      { reference: "compass_a", expected: identity, expectedName: "none", result: result(yaw90.matrix, yaw90) },
+      { reference: "compass_a", expected: identity, expectedId: aligned.id, result: result(right.matrix, right) },
       thresholds,
     );
     expect(check.status).toBe("fail");
     expect(check.measured).toBeCloseTo(90, 6);
-    expect(check.explanation).toContain('as if rotated "yaw 90"');
-    expect(check.explanation).toContain('declared "none"');
-    expect(check.remedy).toContain('"yaw 90"');
+    expect(check.explanation).toContain("closest mounting: module x → vehicle right, module z → down (90.0° from what was declared");
+    expect(check.explanation).toContain("Declared: module x → vehicle forward, module z → down.");
+    expect(check.remedy).toContain("the data point to module x → vehicle right, module z → down");
+  });
+
+  test("a declaration that is none of the 48 is said to be custom", () => {
+    const check = mountingCheck(
+      "compass_b",
+      { reference: "compass_a", expected: identity, expectedId: "custom", result: result(right.matrix, right) },
+      thresholds,
+    );
+    expect(check.explanation).toContain("Declared: a custom rotation, none of the 48 axis-aligned mountings.");
   });
 
   test("as declared: pass", () => {
     expect(
       mountingCheck(
         "compass_b",
-        { reference: "compass_a", expected: yaw90.matrix, expectedName: "yaw 90", result: result(yaw90.matrix, yaw90) },
+        { reference: "compass_a", expected: right.matrix, expectedId: right.id, result: result(right.matrix, right) },
         thresholds,
       ).status,
     ).toBe("pass");
@@ -155,7 +164,7 @@ describe("mountingCheck", () => {
     expect(
       mountingCheck(
         "compass_b",
-        { reference: "compass_a", expected: identity, expectedName: "none", result: result(identity, none, false) },
+        { reference: "compass_a", expected: identity, expectedId: aligned.id, result: result(identity, aligned, false) },
         thresholds,
       ).status,
     ).toBe("skipped");
@@ -185,10 +194,11 @@ describe("currentCouplingCheck", () => {
     for (const caution of [
       /propellers off/,
       /restrained/,
-      /battery handled as its maker directs/,
+      /battery handled as its maker says/,
       /people clear/,
-      /aviation rules/,
+      /local rules \(aviation rules where the vehicle flies\)/i,
       /maker's manual/,
+      /licensed practice/,
     ]) {
       expect(check.remedy).toMatch(caution);
     }

@@ -19,19 +19,19 @@ describe("scenarioCaptureSpec", () => {
 
   test("a second compass and a motor run add their columns", () => {
     const table = capture({
-      secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [1, 2, 3] },
+      secondCompass: { mountingRotation: "x-right.z-down", declaredRotation: "x-forward.z-down", hardIronOffset: [1, 2, 3] },
       currentCoupling: { perAmpMicrotesla: [0.2, 0, 0], maxAmps: 30 },
     });
     expect(table.fields).toEqual(expect.arrayContaining(["compass_b.x", "current", "throttle"]));
   });
 
-  test("an unknown rotation is refused by name", () => {
+  test("an unknown mounting is refused by its id", () => {
     expect(() =>
       scenarioCaptureSpec({
         ...DEFAULT_SCENARIO,
-        secondCompass: { mountingRotation: "yaw 91", declaredRotation: "none", hardIronOffset: [0, 0, 0] },
+        secondCompass: { mountingRotation: "x-forward.z-forward", declaredRotation: "x-forward.z-down", hardIronOffset: [0, 0, 0] },
       }),
-    ).toThrow(/yaw 91/);
+    ).toThrow(/second compass mounting: "x-forward\.z-forward" is not one of the 48 mountings/);
   });
 });
 

@@ -41,7 +41,7 @@ describe("analyseMagnetometers", () => {
     expect(compass_a.mountingComparison).toBeNull();
     expect(compass_b.mountingComparison?.reference).toBe("compass_a");
     expect(compass_b.mountingComparison?.fromDeclaredDeg).toBeLessThan(2);
-    expect(compass_a.declaredRotation.name).toBe("none");
+    expect(compass_a.declaredRotation.id).toBe("x-forward.z-down");
     // No accelerometer, no current column: no dip, no coupling.
     expect(compass_a.dip).toBeNull();
     expect(compass_a.currentCoupling).toBeNull();

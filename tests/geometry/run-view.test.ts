@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { analyseCapture } from "@/geometry/analyse-capture";
 import { convertCapture } from "@/geometry/capture-units";
 import { magneticReference } from "@/geometry/magnetic-reference";
-import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { buildRunView } from "@/geometry/run-view";
 import { simulateCapture } from "@/geometry/simulator";
 import type { CaptureSpec } from "@/geometry/magnetometer-types";
@@ -47,15 +47,15 @@ describe("buildRunView", () => {
   });
 
   test.each([
-    ["a module mounted as declared", "none", 0],
-    ["a module turned 90° in yaw against its declaration", "yaw 90", 90],
+    ["a module mounted as declared", "x-forward.z-down", 0],
+    ["a module turned a quarter turn about z against its declaration", "x-right.z-down", 90],
   ])("paired directions of two compasses: %s", (_label, actual, expectedDeg) => {
     const { view } = viewOf({
       seed: 6,
       pathSeconds: 60,
       magnetometers: [
         {},
-        { mountingRotation: mountingRotationByName(actual)!.matrix, declaredRotation: mountingRotationByName("none")!.matrix },
+        { mountingRotation: mountingRotationById(actual)!.matrix, declaredRotation: mountingRotationById("x-forward.z-down")!.matrix },
       ],
     });
     const [a, b] = view.pairedDirections!.directions;

@@ -157,15 +157,16 @@ describe("simulateCapture", () => {
   });
 
   test("second compass: truth gives its rotation to compass_a, for a body-frame and a sensor-frame logger", () => {
-    const yaw90 = [
+    // x-right.z-down: module x on body y, module y on body −x (hand computation).
+    const quarterTurn = [
       [0, -1, 0],
       [1, 0, 0],
       [0, 0, 1],
     ] as [[number, number, number], [number, number, number], [number, number, number]];
-    const body = simulateCapture({ pathSeconds: 1, magnetometers: [{}, { mountingRotation: yaw90 }] });
-    const sensor = simulateCapture({ pathSeconds: 1, magnetometers: [{}, { mountingRotation: yaw90, loggedFrame: "sensor" }] });
+    const body = simulateCapture({ pathSeconds: 1, magnetometers: [{}, { mountingRotation: quarterTurn }] });
+    const sensor = simulateCapture({ pathSeconds: 1, magnetometers: [{}, { mountingRotation: quarterTurn, loggedFrame: "sensor" }] });
     expect(body.truth.magnetometers[1].rotationToMag0.flat().map((v) => Math.round(v))).toEqual([1, 0, 0, 0, 1, 0, 0, 0, 1]);
-    expect(sensor.truth.magnetometers[1].rotationToMag0.flat().map((v) => Math.round(v))).toEqual(yaw90.flat());
+    expect(sensor.truth.magnetometers[1].rotationToMag0.flat().map((v) => Math.round(v))).toEqual(quarterTurn.flat());
   });
 });
 

@@ -44,10 +44,10 @@ describe("relativeRotation", () => {
     expect(result.samplesUsed).toBe(400);
   });
 
-  test.each(MOUNTING_ROTATIONS.map((m) => ({ label: m.name, m })))("recognises the standard mounting rotation '$label'", ({ m }) => {
+  test.each(MOUNTING_ROTATIONS.map((m) => ({ label: m.id, m })))("recognises the mounting $label", ({ m }) => {
     const { reference, other } = pair(m.matrix, 200, 0.004, 9);
     const result = relativeRotation(reference, other);
-    expect(result.nearest.name).toBe(m.name);
+    expect(result.nearest.id).toBe(m.id);
     expect(result.residualDeg).toBeLessThan(0.2);
   });
 
@@ -57,8 +57,8 @@ describe("relativeRotation", () => {
     expect(relativeRotation(still, still).determined).toBe(false);
   });
 
-  test("two simulated compasses, the second mounted yaw 90 but declared as none: the corrected fields reveal yaw 90", () => {
-    // Truth: the simulator's mounting (yaw 90) against its declaration (none, logged without rotation).
+  test("two simulated compasses, the second mounted x-right.z-down but declared aligned: the corrected fields reveal x-right.z-down", () => {
+    // Truth: the simulator's mounting (a quarter turn about z) against its declaration (aligned, logged without rotation).
     const { table, truth } = simulateCapture({
       seed: 6,
       pathSeconds: 40,
@@ -74,14 +74,19 @@ describe("relativeRotation", () => {
         },
       ],
     });
-    const series = (k: number) => ({ x: table.columns[`${slotName("mag", k)}.x`], y: table.columns[`${slotName("mag", k)}.y`], z: table.columns[`${slotName("mag", k)}.z`] });
+    const series = (k: number) => ({
+      x: table.columns[`${slotName("mag", k)}.x`],
+      y: table.columns[`${slotName("mag", k)}.y`],
+      z: table.columns[`${slotName("mag", k)}.z`],
+    });
     const corrected = [0, 1].map((k) => {
       const cal = calibrateMagnetometer(series(k), { bootstrap: false });
       if (!cal.ok) throw new Error(cal.detail);
       return applyCorrection(cal, series(k));
     });
     const result = relativeRotation(corrected[0], corrected[1]);
-    expect(result.nearest.name).toBe("yaw 90");
+    expect(result.nearest.id).toBe("x-right.z-down");
+    expect(result.nearest.words).toBe("module x → vehicle right, module z → down");
     expect(angleBetweenRotationsDeg(result.rotation, truth.magnetometers[1].rotationToMag0)).toBeLessThan(0.5);
     expect(result.rmsAngleDeg).toBeLessThan(1);
   });

@@ -177,7 +177,7 @@ describe("scenarios", () => {
             ...SPEC,
             sampleRateHz: 1000,
             hardIronOffset: [1, 2],
-            secondCompass: { mountingRotation: "yaw 91", declaredRotation: "none", hardIronOffset: [0, 0, 0] },
+            secondCompass: { mountingRotation: "x-forward.z-forward", declaredRotation: "x-forward.z-down", hardIronOffset: [0, 0, 0] },
           },
         },
       },

@@ -167,7 +167,13 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
     method: "POST",
     expect: expectFor(201, ["owner", "technician"]),
     params: async () => ({ vehicleId: fixtures.vehicleId }),
-    body: () => ({ kind: "accelerometer", label: `imu ${uniqueTag()}`, placement: "internal", mountingRotation: "none", units: "m/s2" }),
+    body: () => ({
+      kind: "accelerometer",
+      label: `imu ${uniqueTag()}`,
+      placement: "internal",
+      mountingRotation: "x-forward.z-down",
+      units: "m/s2",
+    }),
     dataKey: "sensor",
   },
   {
@@ -175,7 +181,7 @@ const WORKSPACE_ROUTES: WorkspaceRouteCase[] = [
     method: "PATCH",
     expect: expectFor(200, ["owner", "technician"]),
     params: async () => ({ sensorId: fixtures.sensorId }),
-    body: () => ({ kind: "magnetometer", label: "mast", placement: "external", mountingRotation: "yaw 90", units: "uT" }),
+    body: () => ({ kind: "magnetometer", label: "mast", placement: "external", mountingRotation: "x-right.z-down", units: "uT" }),
     dataKey: "sensor",
   },
   // Students list runs too, but only those shared with students (none here): 200 with no items.
@@ -351,7 +357,7 @@ beforeAll(async () => {
       kind: "magnetometer",
       label: "board",
       placement: "internal",
-      mountingRotation: "none",
+      mountingRotation: "x-forward.z-down",
       units: "uT",
       columnHints: [],
     })

@@ -29,7 +29,7 @@ beforeAll(async () => {
     `${WS}/vehicles/route.ts`,
     "POST",
     { slug: workspace.slug },
-    { name: "Tern 4", kind: "multirotor", serialTag: "T4-0007" },
+    { name: "Brimwold 4", kind: "multirotor", serialTag: "T4-0007" },
   );
   expect(vehicle.status).toBe(201);
   vehicleId = (vehicle.json.vehicle as { id: string }).id;
@@ -41,7 +41,7 @@ beforeAll(async () => {
       kind: "magnetometer",
       label: "board",
       placement: "internal",
-      mountingRotation: "none",
+      mountingRotation: "x-forward.z-down",
       units: "uT",
     },
   );
@@ -279,7 +279,7 @@ describe("lists", () => {
     const list = await callRoute(`${WS}/vehicles/route.ts`, "GET", { slug: workspace.slug }, undefined, "?search=tern");
     const items = list.json.items as { name: string; sensorCount: number; runCount: number }[];
     expect(items).toHaveLength(1);
-    expect(items[0]).toMatchObject({ name: "Tern 4", sensorCount: 1 });
+    expect(items[0]).toMatchObject({ name: "Brimwold 4", sensorCount: 1 });
     expect(items[0].runCount).toBeGreaterThan(5);
   });
 

@@ -14,7 +14,7 @@ const EVERY_FAULT: ScenarioSpec = {
     [0.05, 0.92, -0.02],
     [0, -0.02, 1],
   ],
-  secondCompass: { mountingRotation: "roll 180 yaw 45", declaredRotation: "none", hardIronOffset: [1, -2, 3.5] },
+  secondCompass: { mountingRotation: "x-forward-right.z-up", declaredRotation: "x-forward.z-down", hardIronOffset: [1, -2, 3.5] },
   currentCoupling: { perAmpMicrotesla: [0.4, 0, -0.25], maxAmps: 30 },
   clipLevelMicrotesla: 55,
   holds: { faces: ["+z", "-z", "+x"], wobbleDeg: 5, tiltDeg: 2 },
@@ -94,10 +94,10 @@ describe("readScenarioSpec: one message per bad field, under the API's field nam
       /folds space/,
     ],
     [
-      "an unknown mounting rotation",
-      (d: ScenarioDraft) => ((d.secondCompass.on = true), (d.secondCompass.mountingRotation = "yaw 91")),
+      "an unknown mounting (both axes forward)",
+      (d: ScenarioDraft) => ((d.secondCompass.on = true), (d.secondCompass.mountingRotation = "x-forward.z-forward")),
       "spec.secondCompass.mountingRotation",
-      /yaw 91/,
+      /x-forward\.z-forward.*48 mountings/,
     ],
     [
       "coupling beyond 5 µT/A",

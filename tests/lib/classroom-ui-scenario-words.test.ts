@@ -11,13 +11,25 @@ describe("scenarioFaultWords", () => {
   test.each([
     [
       "a module against its declaration",
-      { secondCompass: { mountingRotation: "yaw 90", declaredRotation: "none", hardIronOffset: [0, 0, 0] as [number, number, number] } },
-      "second compass mounted yaw 90, declared none",
+      {
+        secondCompass: {
+          mountingRotation: "x-right.z-down",
+          declaredRotation: "x-forward.z-down",
+          hardIronOffset: [0, 0, 0] as [number, number, number],
+        },
+      },
+      "second compass mounted (x → right, z → down), declared (x → forward, z → down)",
     ],
     [
       "a module as declared",
-      { secondCompass: { mountingRotation: "yaw 90", declaredRotation: "yaw 90", hardIronOffset: [0, 0, 0] as [number, number, number] } },
-      "second compass (yaw 90)",
+      {
+        secondCompass: {
+          mountingRotation: "x-right.z-down",
+          declaredRotation: "x-right.z-down",
+          hardIronOffset: [0, 0, 0] as [number, number, number],
+        },
+      },
+      "second compass (x → right, z → down)",
     ],
     [
       "a motor run",

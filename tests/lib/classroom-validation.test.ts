@@ -33,7 +33,7 @@ describe("scenarioSpecSchema", () => {
     ],
     [
       "a second compass declared as mounted",
-      { secondCompass: { mountingRotation: "yaw 90", declaredRotation: "yaw 90", hardIronOffset: [1, 2, 3] } },
+      { secondCompass: { mountingRotation: "x-right.z-down", declaredRotation: "x-right.z-down", hardIronOffset: [1, 2, 3] } },
     ],
     ["six holds with wobble", { holds: { faces: ["+z", "-z", "+x", "-x", "+y", "-y"], wobbleDeg: 3, tiltDeg: 0 } }],
     ["current coupling", { currentCoupling: { perAmpMicrotesla: [0.3, 0, -0.2], maxAmps: 30 } }],
@@ -75,10 +75,10 @@ describe("scenarioSpecSchema", () => {
       /flat/,
     ],
     [
-      "a rotation that is not standard",
-      { secondCompass: { mountingRotation: "yaw 91", declaredRotation: "none", hardIronOffset: [0, 0, 0] } },
+      "a mounting that is none of the 48 (x and z both forward)",
+      { secondCompass: { mountingRotation: "x-forward.z-forward", declaredRotation: "x-forward.z-down", hardIronOffset: [0, 0, 0] } },
       "secondCompass.mountingRotation",
-      /standard mounting rotations/,
+      /Second compass mounting: choose one of the 48 mountings, e\.g\. x-right\.z-down/,
     ],
     ["a face held twice", { holds: { faces: ["+z", "+z"], wobbleDeg: 0, tiltDeg: 0 } }, "holds.faces", /once/],
     ["no current", { currentCoupling: { perAmpMicrotesla: [0, 0, 0], maxAmps: 0 } }, "currentCoupling.maxAmps", /Maximum current/],

@@ -3,7 +3,7 @@ import { correctionCsv, correctionDocument, correctionHeader, type CorrectionCon
 
 const context: CorrectionContext = {
   runId: "run-1",
-  vehicleName: "Tern 4",
+  vehicleName: "Brimwold 4",
   capturedOn: "2026-06-01",
   versionNumber: 2,
   siteName: "Harbour wall field",

@@ -8,12 +8,13 @@ import { ParametersTable } from "@/components/run/parameters-table";
 import { plotDataOf } from "@/components/run/plot-data";
 import { Plots } from "@/components/run/plots";
 import { SafetyCautions } from "@/components/run/safety-cautions";
+import { MotorSafety } from "@/components/upload/motor-safety";
 import { VerdictBanner } from "@/components/run/verdict-banner";
 import { analyseCapture, type CaptureAnalysis } from "@/geometry/analyse-capture";
 import { convertCapture } from "@/geometry/capture-units";
 import { magneticReference } from "@/geometry/magnetic-reference";
 import type { CaptureSpec } from "@/geometry/magnetometer-types";
-import { mountingRotationByName } from "@/geometry/mounting-rotations";
+import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { buildRunView, type RunView } from "@/geometry/run-view";
 import { simulateCapture } from "@/geometry/simulator";
 
@@ -64,10 +65,13 @@ const rotated = run(
     seed: 103,
     magnetometers: [
       { hardIronOffset: [5, -9, 12] },
-      { mountingRotation: mountingRotationByName("yaw 90")!.matrix, declaredRotation: mountingRotationByName("none")!.matrix },
+      {
+        mountingRotation: mountingRotationById("x-right.z-down")!.matrix,
+        declaredRotation: mountingRotationById("x-forward.z-down")!.matrix,
+      },
     ],
   },
-  { compass_b: "none" },
+  { compass_b: "x-forward.z-down" },
 );
 const motor = run({
   seed: 105,
@@ -141,11 +145,16 @@ describe("CheckList", () => {
 });
 
 describe("ParametersTable", () => {
-  test("a second compass shows the measured rotation, the nearest standard one and the angle from the declaration", () => {
+  test("a second compass shows the measured rotation, the closest mounting in words with its Euler angles second, and the angle from the declaration", () => {
     const { parameters } = panels(rotated.analysis, { compass_b: "mast module" });
     const compass_b = parameters.slice(parameters.indexOf('data-sensor="compass_b"'));
     expect(compass_b).toContain("Compass B · mast module");
-    expect(compass_b).toMatch(/nearest standard: <span[^>]*>yaw 90<\/span>/);
+    // Hand computation: the module's x on the vehicle's right is a quarter turn about z, yaw +90°.
+    expect(compass_b).toMatch(/closest mounting: <span[^>]*>module x → vehicle right, module z → down<\/span>/);
+    const words = compass_b.indexOf("module x → vehicle right, module z → down");
+    expect(compass_b.indexOf("Euler angles (roll, pitch, yaw): 0°, 0°, 90°")).toBeGreaterThan(words);
+    expect(compass_b).toContain('Declared mounting</dt><dd class="mt-0.5 text-sm">module x → vehicle forward, module z → down');
+    expect(compass_b).toMatch(/data-testid="mounting-picture"[^>]*data-mounting="x-right.z-down"/);
     expect(compass_b).toMatch(/data-testid="rotation-from-declared"[\s\S]*?(89\.\d|90\.0)°/);
   });
   test("a fitted compass shows offsets per axis, the soft-iron matrix and the model's field", () => {
@@ -231,5 +240,42 @@ describe("SafetyCautions", () => {
     ["licensed practice"],
   ])("mentions %s", (words) => {
     expect(html(createElement(SafetyCautions))).toContain(words);
+  });
+  test.each([
+    ["multirotor", "Local aviation rules"],
+    ["fixed-wing", "Local aviation rules"],
+    ["vtol", "Local aviation rules"],
+    ["other", "Local aviation rules"],
+    ["rover", "Local rules,"],
+    ["boat", "Local rules,"],
+  ] as const)("a %s's cautions defer to %s first", (vehicleKind, words) => {
+    const markup = html(createElement(SafetyCautions, { vehicleKind }));
+    expect(markup).toContain(words);
+    expect(markup).toContain("maker’s manual and licensed practice");
+    if (vehicleKind === "rover" || vehicleKind === "boat") expect(markup).not.toContain("aviation");
+  });
+});
+
+describe("MotorSafety (upload page)", () => {
+  const box = (vehicleKind: "multirotor" | "boat" | null) =>
+    html(
+      createElement(MotorSafety, {
+        vehicleKind,
+        powersMotors: true,
+        fromColumns: true,
+        acknowledged: false,
+        onPowersMotors: () => undefined,
+        onAcknowledged: () => undefined,
+      }),
+    );
+  test.each([
+    ["multirotor", "Local aviation rules"],
+    [null, "Local aviation rules"],
+    ["boat", "Local rules,"],
+  ] as const)("for a %s, names %s, with all the cautions", (vehicleKind, words) => {
+    const markup = box(vehicleKind);
+    expect(markup).toContain(words);
+    for (const caution of ["propellers off", "restrained", "battery", "clear of the motors", "maker’s manual", "licensed practice"])
+      expect(markup).toContain(caution);
   });
 });

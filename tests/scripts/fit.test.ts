@@ -88,6 +88,36 @@ describe("npm run fit", () => {
     const document = JSON.parse(stdout);
     expect(document).not.toHaveProperty("accelerometer");
     expect(document.magnetometers).toHaveLength(1);
+    expect(document).not.toHaveProperty("powersMotors");
+  }, 120_000);
+
+  test("a motor run (current and throttle columns) prints the full cautions on stderr and says powersMotors", () => {
+    const reference = magneticReference(site, date);
+    const { table } = simulateCapture({
+      seed: 8,
+      siteFieldNed: reference.fieldNedMicrotesla,
+      holds: { faces: SIX },
+      magnetometers: [{ hardIronOffset: [6, -2, 4], currentCoupling: [0.4, -0.2, 0.6] }],
+      currentTest: { maxAmps: 30 },
+    });
+    expect(table.fields).toEqual(expect.arrayContaining(["current", "throttle"]));
+    const file = write("motor-run.csv", tableToCsv(table).replace(",current,", ",Battery Current (A),"));
+    const { code, stdout, stderr } = fit(file, "--site=-33.9,18.4,20", "--date", "2026-02-01", "--units", "uT");
+    expect(code).toBe(0);
+    // stdout stays one JSON document; the cautions are not in it.
+    const document = JSON.parse(stdout);
+    expect(document.powersMotors).toBe(true);
+    expect(stderr).toMatch(/"Battery Current \(A\)" \(current\)/);
+    for (const element of [
+      /propellers off/,
+      /vehicle restrained/,
+      /battery handled as its maker says/,
+      /people clear/,
+      /local rules/i,
+      /maker's manual/,
+      /licensed practice/,
+    ])
+      expect(stderr).toMatch(element);
   }, 120_000);
 
   test.each([
@@ -143,4 +173,44 @@ describe("npm run fit", () => {
     },
     120_000,
   );
+});
+
+describe("npm run fit --mount", () => {
+  test("declares a compass's mounting by id; an id that is none of the 48 is refused by name", () => {
+    const reference = magneticReference(site, date);
+    // The module sits a quarter turn about z (x-right.z-down) and logs its own axes.
+    const { table } = simulateCapture({
+      seed: 23,
+      siteFieldNed: reference.fieldNedMicrotesla,
+      accelerometer: false,
+      gyro: false,
+      magnetometers: [
+        {},
+        {
+          mountingRotation: [
+            [0, -1, 0],
+            [1, 0, 0],
+            [0, 0, 1],
+          ],
+          declaredRotation: [
+            [1, 0, 0],
+            [0, 1, 0],
+            [0, 0, 1],
+          ],
+        },
+      ],
+    });
+    const file = write("mounted.csv", tableToCsv(table));
+    const good = fit(file, "--units", "uT", "--mount", "compass_b=x-right.z-down");
+    expect(good.code).toBe(0);
+    const document = JSON.parse(good.stdout);
+    expect(document.magnetometers[1].declaredRotation.id).toBe("x-right.z-down");
+    const check = document.checks.find((c: { id: string; sensor: string }) => c.id === "mag.mounting" && c.sensor === "compass_b");
+    expect(check.status).toBe("pass");
+
+    const bad = fit(file, "--units", "uT", "--mount", "compass_b=sideways");
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toContain('"sideways" is not one of the 48 mountings');
+    expect(bad.stderr).toContain("--mount compass_b=x-right.z-down");
+  }, 120_000);
 });

@@ -1,6 +1,6 @@
 import { Readable } from "node:stream";
 import { describe, expect, test } from "vitest";
-import { detectDelimiter, IngestError, parseCsvStream, parseCsvTable } from "@/lib/ingest/csv-table";
+import { detectDelimiter, IngestError, parseCsvStream, parseCsvTable, readHeaderCells } from "@/lib/ingest/csv-table";
 
 /** A small valid capture: a header and `rows` rows of time, one magnetometer and one accelerometer. */
 function goodCsv(rows = 12, delimiter = ","): string {
@@ -55,6 +55,29 @@ describe("detectDelimiter", () => {
     { label: "spaces only", text: "a b c\n1 2 3\n", delimiter: null },
   ])("$label", ({ text, delimiter }) => {
     expect(detectDelimiter(text)).toBe(delimiter);
+  });
+});
+
+describe("readHeaderCells", () => {
+  test.each([
+    {
+      label: "comma, with a byte-order mark",
+      text: "\ufefftime, mag_x ,mag_y,mag_z,current\n0,1,2,3,4\n",
+      cells: ["time", "mag_x", "mag_y", "mag_z", "current"],
+    },
+    { label: "tab", text: "t\tmx\tmy\tmz\tThrottle (%)\n0\t1\t2\t3\t40\n", cells: ["t", "mx", "my", "mz", "Throttle (%)"] },
+    {
+      label: "comment preamble and a quoted name",
+      text: '# logger v2\n\nt;"Battery Current (A)";mx\n1;2;3\n',
+      cells: ["t", "Battery Current (A)", "mx"],
+    },
+    // The head of a file is cut anywhere: the last line may be short.
+    { label: "a head cut inside a row", text: "time,mx,my,mz\n0,1,2,3\n1,2,3,4\n2,3,", cells: ["time", "mx", "my", "mz"] },
+    { label: "only a header line", text: "time,mx,my,mz", cells: ["time", "mx", "my", "mz"] },
+    { label: "no delimiter", text: "time mx my mz\n0 1 2 3\n", cells: null },
+    { label: "nothing but comments", text: "# nothing\n\n", cells: null },
+  ])("$label", ({ text, cells }) => {
+    expect(readHeaderCells(text)).toEqual(cells);
   });
 });
 

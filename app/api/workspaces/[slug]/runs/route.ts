@@ -18,7 +18,9 @@ export const GET = workspaceRoute("run.view", async (request, { access }) => {
 
 /**
  * Register a run. The answer carries a presigned URL: PUT the file there (straight to object
- * storage), then POST …/runs/{id}/uploaded to queue the processing.
+ * storage), then POST …/runs/{id}/uploaded to queue the processing. With {columns} (the file's
+ * header names) the server tells a motor run from its current or throttle column and refuses it
+ * without {safetyAcknowledged: true} (400, naming the field and the column).
  */
 export const POST = workspaceRoute("run.create", async (request, { access, viewer }) => {
   const body = await readJson(request, createRunSchema);

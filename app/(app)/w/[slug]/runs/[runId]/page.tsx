@@ -80,7 +80,7 @@ export default async function RunPage({
         ) : null}
       </header>
 
-      {run.powersMotors ? <SafetyCautions /> : null}
+      {run.powersMotors ? <SafetyCautions vehicleKind={run.vehicleKind} /> : null}
 
       {!analysis ? (
         <RunProgress apiBase={apiBase} initial={{ status: run.status, progress: run.progress, stage: run.stage, error: run.error }} />
@@ -92,6 +92,7 @@ export default async function RunPage({
             diagnosis={analysis.diagnosis}
             checks={analysis.checks}
             sensorLabels={sensorLabels}
+            vehicleKind={run.vehicleKind}
           />
           <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] print:block">
             <div className="min-w-0 space-y-6">

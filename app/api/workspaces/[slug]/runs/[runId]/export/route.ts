@@ -5,7 +5,9 @@ import { getRunDetail, getRunResults } from "@/lib/data/runs";
 import { correctionCsv, correctionDocument, correctionHeader } from "@/lib/export/correction";
 
 const querySchema = z.object({
-  format: z.enum(["correction-json", "correction-csv", "c-header", "results-json"], { error: "format is correction-json, correction-csv, c-header or results-json." }),
+  format: z.enum(["correction-json", "correction-csv", "c-header", "results-json"], {
+    error: "format is correction-json, correction-csv, c-header or results-json.",
+  }),
   version: z.uuid().optional(),
 });
 

@@ -11,7 +11,10 @@ export const GET = workspaceRoute<P>("run.view", async (_request, context, { run
   return NextResponse.json({ versions: (await getRunDetail(context.access.workspace.id, runId))!.versions });
 });
 
-/** Process the run again with another model ({model}) and/or site ({siteId}); earlier results stay. */
+/**
+ * Process the run again with another model ({model}) and/or site ({siteId}); earlier results stay.
+ * A stored file with motor current or throttle on a run never confirmed needs {safetyAcknowledged: true}.
+ */
 export const POST = workspaceRoute<P>("run.edit", async (request, context, { runId }) => {
   const access = await runAccess(context, runId, "run.edit");
   if (access === "missing") return notFound();

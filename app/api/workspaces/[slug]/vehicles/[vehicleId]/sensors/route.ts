@@ -11,7 +11,7 @@ export const GET = workspaceRoute<P>("vehicle.view", async (_request, { access }
   return NextResponse.json({ sensors: await listSensors(access.workspace.id, vehicleId) });
 });
 
-/** Add a sensor with its declared mounting rotation (one of the standard set). */
+/** Add a sensor with its declared mounting (one of the 48 axis-aligned mountings, by id). */
 export const POST = workspaceRoute<P>("vehicle.edit", async (request, { access, viewer, can }, { vehicleId }) => {
   const ownership = await vehicleOwnership(access.workspace.id, vehicleId);
   if (!ownership) return notFound();

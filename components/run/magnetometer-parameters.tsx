@@ -1,3 +1,4 @@
+import { slotWords } from "@/geometry/sensor-slots";
 import { MountingPicture } from "@/components/fleet/mounting-picture";
 import type { MagnetometerAnalysis } from "@/geometry/magnetometer-analysis";
 import { eulerAnglesLine, mountingRotationById } from "@/geometry/mounting-rotations";
@@ -28,7 +29,7 @@ function Mounting({ compass }: { compass: MagnetometerAnalysis }) {
         {comparison && closest ? (
           <>
             <Figure term="Measured rotation" testId="measured-rotation">
-              against {comparison.reference}, closest mounting: <span className="font-semibold">{closest.words}</span>, residual{" "}
+              against {slotWords(comparison.reference)}, closest mounting: <span className="font-semibold">{closest.words}</span>, residual{" "}
               <span className="font-mono">{formatQuantity(comparison.result.residualDeg, "°")}</span>
               {closest.eulerDeg ? <span className="block text-xs text-chart-muted">{eulerAnglesLine(closest)}</span> : null}
             </Figure>

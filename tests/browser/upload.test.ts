@@ -378,7 +378,7 @@ describe("the upload page", () => {
     // A compass axis left out, then a field given twice: each is said where it is.
     const column = (name: string) => page.getByLabel(`What column “${name}” holds`);
     await column("Compass Y (uT)").selectOption("ignore");
-    await expect.poll(() => page.getByTestId("mapping-problems").textContent()).toContain("compass_a needs all three axes");
+    await expect.poll(() => page.getByTestId("mapping-problems").textContent()).toContain("Compass A needs all three axes");
     await column("Compass Y (uT)").selectOption("compass_a.x");
     await expect
       .poll(() => page.getByRole("alert").filter({ hasText: "compass_a.x is already given to “Compass X (uT)”" }).count())

@@ -276,7 +276,7 @@ describe("lists", () => {
 
   test("vehicles list with counts", async () => {
     actAs(owner.id);
-    const list = await callRoute(`${WS}/vehicles/route.ts`, "GET", { slug: workspace.slug }, undefined, "?search=tern");
+    const list = await callRoute(`${WS}/vehicles/route.ts`, "GET", { slug: workspace.slug }, undefined, "?search=brimwold");
     const items = list.json.items as { name: string; sensorCount: number; runCount: number }[];
     expect(items).toHaveLength(1);
     expect(items[0]).toMatchObject({ name: "Brimwold 4", sensorCount: 1 });

@@ -1,29 +1,10 @@
 /**
- * The words of the motor-run cautions that depend on the vehicle: which rules come first.
- * Shared by the server (its refusals) and the pages (the caution boxes). A vehicle that
- * flies, or might (an "other" or an unknown kind), answers to aviation rules; a rover or a
- * boat to local rules.
+ * The server's refusal of a motor run that was not confirmed; which rules come first for
+ * the vehicle is in lib/vehicle-words.ts.
  */
 import type { VehicleKind } from "@/lib/fleet-terms";
+import { localRulesFor } from "@/lib/vehicle-words";
 import type { MotorField } from "@/geometry/motor-safety";
-
-const STAYS_DOWN: ReadonlySet<string> = new Set<VehicleKind>(["rover", "boat"]);
-
-/** True unless the vehicle is known to stay on the ground or the water. */
-export function vehicleMayFly(kind: VehicleKind | string | null | undefined): boolean {
-  return !kind || !STAYS_DOWN.has(kind);
-}
-
-/** "local aviation rules" or "local rules", lower case, to go inside a sentence. */
-export function localRulesFor(kind: VehicleKind | string | null | undefined): string {
-  return vehicleMayFly(kind) ? "local aviation rules" : "local rules";
-}
-
-/** The same with a capital, to start a sentence. */
-export function localRulesAtStart(kind: VehicleKind | string | null | undefined): string {
-  const words = localRulesFor(kind);
-  return words.charAt(0).toUpperCase() + words.slice(1);
-}
 
 /** A column name as it may be quoted back: no control characters, not too long. */
 function quoted(header: string): string {

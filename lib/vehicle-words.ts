@@ -15,3 +15,25 @@ export const GOING_OUT_VERB: Record<VehicleKind, string> = {
 export function doNotGoOutWords(kind: VehicleKind | null | undefined): string {
   return `Do not ${GOING_OUT_VERB[kind ?? "other"] ?? GOING_OUT_VERB.other} on this calibration`;
 }
+
+/**
+ * Which rules come first for a motor run: a vehicle that flies, or might (an "other" or an
+ * unknown kind), answers to aviation rules; a rover or a boat to local rules.
+ */
+const STAYS_DOWN: ReadonlySet<string> = new Set<VehicleKind>(["rover", "boat"]);
+
+/** True unless the vehicle is known to stay on the ground or the water. */
+export function vehicleMayFly(kind: VehicleKind | string | null | undefined): boolean {
+  return !kind || !STAYS_DOWN.has(kind);
+}
+
+/** "local aviation rules" or "local rules", lower case, to go inside a sentence. */
+export function localRulesFor(kind: VehicleKind | string | null | undefined): string {
+  return vehicleMayFly(kind) ? "local aviation rules" : "local rules";
+}
+
+/** The same with a capital, to start a sentence. */
+export function localRulesAtStart(kind: VehicleKind | string | null | undefined): string {
+  const words = localRulesFor(kind);
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}

@@ -1,5 +1,5 @@
 import type { VehicleKind } from "@/lib/fleet-terms";
-import { localRulesAtStart } from "@/lib/motor-cautions";
+import { localRulesAtStart } from "@/lib/vehicle-words";
 
 /**
  * The cautions printed on every run whose capture powered the motors (a current-coupling

@@ -1,7 +1,7 @@
 "use client";
 
 import type { VehicleKind } from "@/lib/fleet-terms";
-import { localRulesAtStart } from "@/lib/motor-cautions";
+import { localRulesAtStart } from "@/lib/vehicle-words";
 
 /**
  * The question whether the capture powers motors, and, when it does, the cautions and the

@@ -1,6 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { VEHICLE_KINDS } from "@/lib/fleet-terms";
-import { localRulesAtStart, localRulesFor, motorRunConfirmationMessage, vehicleMayFly } from "@/lib/motor-cautions";
+import { motorRunConfirmationMessage } from "@/lib/motor-cautions";
+import { localRulesAtStart, localRulesFor, vehicleMayFly } from "@/lib/vehicle-words";
 
 describe("the rules a motor run defers to", () => {
   test.each(VEHICLE_KINDS.map((kind) => [kind, kind === "rover" || kind === "boat" ? "local rules" : "local aviation rules"]))(

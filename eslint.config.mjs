@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTypeScript,
   {
-    ignores: [".next/**", ".next-test/**", ".data/**", "node_modules/**", "test-results/**", "bench/out/**", "next-env.d.ts"],
+    ignores: [".next/**", ".next-test/**", ".data/**", "node_modules/**", "test-results/**", "bench/out/**", "dist/**", "next-env.d.ts"],
   },
   {
     rules: {

@@ -6,6 +6,13 @@
  * the body axis pointing down is the one most opposed to the mean reading. Faces are named
  * by that axis: "+z" down is level, "−z" upside down, "+x" nose down, "−x" nose up, "+y"
  * right side down, "−y" left side down (body frame x forward, y right, z down).
+ *
+ * Wobble is the RMS angle between short block means and the pose's mean. Averaging a block
+ * shrinks white sensor noise but does not remove it: a noisy sensor's blocks still scatter
+ * by about √(2/b)·σ/g radians (b samples a block, σ the noise on each axis). So the sensor's
+ * own noise floor is measured from the still periods — σ from second differences,
+ * x[i+1] − 2x[i] + x[i−1], whose variance is 6σ² for white noise and which a hand's slow
+ * wobble hardly touches — and the wobble reported is what is left above that floor.
  */
 import type { BodyFace } from "./magnetometer-types";
 import { medianTimeStep, type StillPeriod } from "./still-periods";
@@ -68,8 +75,15 @@ export interface AccelerometerPose {
   meanSpecificForce: Vec3;
   /** Angle of the raw mean's down direction from the face's axis, degrees (before calibration). */
   angleFromAxisDeg: number;
-  /** RMS angle between 0.1 s block means and the pose mean, degrees: hand wobble, with sensor noise averaged out. */
+  /**
+   * Hand wobble, degrees RMS: the RMS angle between 0.1 s block means and the pose mean, less
+   * (in quadrature) what the sensor's noise floor alone would give, with its chance scatter allowed.
+   */
   wobbleDeg: number;
+  /** The RMS block angle the sensor's noise alone would give in this pose, degrees. */
+  noiseFloorDeg: number;
+  /** White noise of the sensor on each axis, same units as the reading: the median over the poses, from second differences. */
+  noiseStd: number;
   /** Standard deviation of the reading vector over the pose (noise included), same units as the reading. */
   wobbleStd: number;
 }
@@ -83,10 +97,23 @@ export interface PoseGroupingOptions {
   wobbleBlockS?: number;
 }
 
+/**
+ * How many standard deviations of its own chance scatter the noise floor is allowed before a
+ * wobble counts: the mean square of B block angles from noise alone scatters by about 1/√B
+ * of itself (engineering choice, tuned on simulated captures: 3 keeps a still, noisy
+ * sensor's six holds from warning, while a hand wobble of half a degree still shows).
+ */
+export const NOISE_FLOOR_ALLOWANCE_SIGMAS = 3;
+
 interface PoseStats {
   mean: Vec3;
   wobbleStd: number;
+  /** Raw block wobble, degrees RMS (noise included). */
   wobbleDeg: number;
+  blocks: number;
+  /** Sum of squared second differences over the three axes, and how many were summed. */
+  curvatureSquares: number;
+  curvatureCount: number;
 }
 
 function poseStats(accel: Vec3Series, start: number, end: number, blockSamples: number): PoseStats {
@@ -108,7 +135,7 @@ function poseStats(accel: Vec3Series, start: number, end: number, blockSamples: 
       dz = z[i] - mean[2];
     squares += dx * dx + dy * dy + dz * dz;
   }
-  // Wobble from block means, so that white sensor noise (which averages away) does not count.
+  // Wobble from block means, which shrink white sensor noise (the floor is removed later).
   const meanNorm = norm(mean);
   let angleSquares = 0;
   let blocks = 0;
@@ -127,11 +154,41 @@ function poseStats(accel: Vec3Series, start: number, end: number, blockSamples: 
     angleSquares += angle * angle;
     blocks++;
   }
+  let curvatureSquares = 0;
+  for (const axis of [x, y, z]) {
+    for (let i = start + 1; i < end - 1; i++) {
+      const d = axis[i + 1] - 2 * axis[i] + axis[i - 1];
+      curvatureSquares += d * d;
+    }
+  }
   return {
     mean,
     wobbleStd: Math.sqrt(squares / count),
     wobbleDeg: blocks > 0 ? Math.sqrt(angleSquares / blocks) / DEG : 0,
+    blocks,
+    curvatureSquares,
+    curvatureCount: 3 * Math.max(0, count - 2),
   };
+}
+
+/**
+ * Block wobble with the noise floor removed: the RMS block angle `rawDeg` over `blocks`
+ * blocks of `blockSamples` samples, for a pose of `count` samples reading `magnitude`, from
+ * a sensor with white noise `sigma` per axis. A block mean's error less the pose mean's has
+ * variance σ²(1/b − 1/n) on each of the two axes square to the reading.
+ */
+export function wobbleAboveNoise(
+  rawDeg: number,
+  blocks: number,
+  blockSamples: number,
+  count: number,
+  magnitude: number,
+  sigma: number,
+): { wobbleDeg: number; noiseFloorDeg: number } {
+  const share = Math.max(0, 1 / blockSamples - 1 / count);
+  const floorSquares = magnitude > 0 ? (2 * sigma * sigma * share) / (magnitude * magnitude) / (DEG * DEG) : 0;
+  const allowance = floorSquares * (1 + NOISE_FLOOR_ALLOWANCE_SIGMAS / Math.sqrt(Math.max(1, blocks)));
+  return { wobbleDeg: Math.sqrt(Math.max(0, rawDeg * rawDeg - allowance)), noiseFloorDeg: Math.sqrt(floorSquares) };
 }
 
 /**
@@ -172,10 +229,26 @@ export function groupPoses(
     previousMean = mean;
   }
 
-  return groups.map((group) => describeGroup(timeS, accel, group, blockSamples));
+  const described = groups.map((group) => describeGroup(timeS, accel, group, blockSamples));
+  // The sensor's own noise: the median over the poses, so that one vibrating hold does not raise it.
+  const noises = described.map((pose) => pose.noise).sort((a, b) => a - b);
+  const noiseStd = noises.length > 0 ? noises[Math.floor(noises.length / 2)] : 0;
+  return described.map(({ pose, rawWobbleDeg, blocks }) => ({
+    ...pose,
+    ...wobbleAboveNoise(rawWobbleDeg, blocks, blockSamples, pose.sampleCount, norm(pose.meanSpecificForce), noiseStd),
+    noiseStd,
+  }));
 }
 
-function describeGroup(timeS: Float64Array, accel: Vec3Series, group: StillPeriod[], blockSamples: number): AccelerometerPose {
+interface DescribedGroup {
+  pose: Omit<AccelerometerPose, "wobbleDeg" | "noiseFloorDeg" | "noiseStd">;
+  rawWobbleDeg: number;
+  blocks: number;
+  /** White noise per axis within this pose. */
+  noise: number;
+}
+
+function describeGroup(timeS: Float64Array, accel: Vec3Series, group: StillPeriod[], blockSamples: number): DescribedGroup {
   // Sample-weighted combination of the periods' statistics.
   let count = 0;
   const sum: Vec3 = [0, 0, 0];
@@ -189,7 +262,13 @@ function describeGroup(timeS: Float64Array, accel: Vec3Series, group: StillPerio
   const mean: Vec3 = [sum[0] / count, sum[1] / count, sum[2] / count];
   let squares = 0;
   let angleSquares = 0;
+  let blocks = 0;
+  let curvatureSquares = 0;
+  let curvatureCount = 0;
   for (const { stats, n } of parts) {
+    blocks += stats.blocks;
+    curvatureSquares += stats.curvatureSquares;
+    curvatureCount += stats.curvatureCount;
     const offset = Math.hypot(stats.mean[0] - mean[0], stats.mean[1] - mean[1], stats.mean[2] - mean[2]);
     squares += n * (stats.wobbleStd * stats.wobbleStd + offset * offset);
     const tilt = angleBetweenDeg(stats.mean, mean);
@@ -199,17 +278,21 @@ function describeGroup(timeS: Float64Array, accel: Vec3Series, group: StillPerio
   const last = group[group.length - 1];
   const { face, angleFromAxisDeg } = nearestFace(mean);
   return {
-    face,
-    startIndex: first.startIndex,
-    endIndex: last.endIndex,
-    startTimeS: timeS[first.startIndex],
-    endTimeS: timeS[last.endIndex - 1],
-    durationS: group.reduce((total, period) => total + period.durationS, 0),
-    sampleCount: count,
-    meanSpecificForce: mean,
-    angleFromAxisDeg,
-    wobbleDeg: Math.sqrt(angleSquares / count),
-    wobbleStd: Math.sqrt(squares / count),
+    pose: {
+      face,
+      startIndex: first.startIndex,
+      endIndex: last.endIndex,
+      startTimeS: timeS[first.startIndex],
+      endTimeS: timeS[last.endIndex - 1],
+      durationS: group.reduce((total, period) => total + period.durationS, 0),
+      sampleCount: count,
+      meanSpecificForce: mean,
+      angleFromAxisDeg,
+      wobbleStd: Math.sqrt(squares / count),
+    },
+    rawWobbleDeg: Math.sqrt(angleSquares / count),
+    blocks,
+    noise: curvatureCount > 0 ? Math.sqrt(curvatureSquares / curvatureCount / 6) : 0,
   };
 }
 

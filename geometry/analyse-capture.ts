@@ -17,6 +17,7 @@ import { STANDARD_GRAVITY_MPS2, normalGravity } from "./gravity";
 import { estimateGyroBias, type GyroBias, type GyroBiasRefusal } from "./gyro-bias";
 import { magneticReference, type MagneticReference, type Site } from "./magnetic-reference";
 import { analyseMagnetometers, type MagnetometerAnalysis } from "./magnetometer-analysis";
+import { magnetometerRange } from "./magnetometer-range";
 import type { MagModelChoice } from "./magnetometer-types";
 import { compareAccelerometers, compareGyroscopes, type AccelerometerAgreement, type GyroscopeAgreement } from "./sensor-agreement";
 import { findStillPeriods, STILL_PERIOD_DEFAULTS, type StillPeriod } from "./still-periods";
@@ -44,6 +45,11 @@ export interface AnalyseCaptureOptions {
    * logged values are taken to be in the body frame already.
    */
   mountingRotations?: Record<string, Mat3 | string>;
+  /**
+   * Full-scale range of each compass (by sensor, like mountingRotations), ± µT per axis. A
+   * compass without one is judged against the common default (magnetometer-range.ts).
+   */
+  magnetometerRangesUt?: Record<string, number>;
   thresholds?: ThresholdOverrides;
   /** Seed of the bootstraps; default 1. */
   seed?: number;
@@ -112,6 +118,8 @@ function accelerometerCorrection(result: AccelerometerResult | undefined): Affin
 export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOptions = {}): CaptureAnalysis {
   const notes: string[] = [];
   const thresholds = resolveThresholds(options.thresholds);
+  // A stated range that is no range fails here, naming its compass, whatever the fit does.
+  for (const [sensor, range] of Object.entries(options.magnetometerRangesUt ?? {})) magnetometerRange(sensor, range);
   const units = resolveCaptureUnits(table, options.units, options.unitHints);
   for (const [name, unit] of Object.entries(units)) {
     if (unit.how === "guessed") notes.push(`${name}: unit not stated, taken as ${unit.label} from the size of its readings.`);
@@ -149,7 +157,9 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
   // Still periods, from the first accelerometer (and gyroscope).
   const accel_a = sensors.accel[0] ? seriesOf(capture, sensors.accel[0]) : null;
   const gyro_a = sensors.gyro[0] ? seriesOf(capture, sensors.gyro[0]) : undefined;
-  const stillPeriods = accel_a ? findStillPeriods(time, accel_a, { gyro: gyro_a }) : [];
+  // The first compass too: a steady turn on level ground keeps gravity still but turns the heading.
+  const compass_a = sensors.mag[0] ? seriesOf(capture, sensors.mag[0]) : undefined;
+  const stillPeriods = accel_a ? findStillPeriods(time, accel_a, { gyro: gyro_a, compass: compass_a }) : [];
 
   // Accelerometers.
   const accelerometers: AccelerometerAnalysis[] = sensors.accel.map((sensor) => {
@@ -167,6 +177,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
               series,
               findStillPeriods(time, series, {
                 gyro: gyro_a,
+                compass: compass_a,
                 accelStdThresholdMps2: 4 * STILL_PERIOD_DEFAULTS.accelStdThresholdMps2,
                 gyroRateThresholdRadPerS: 4 * STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS,
                 maxDriftDeg: 4 * STILL_PERIOD_DEFAULTS.maxDriftDeg,
@@ -203,7 +214,11 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
 
   // Gyroscopes.
   const gyroscopes: GyroscopeAnalysis[] = sensors.gyro.map((sensor) => {
-    const result = estimateGyroBias(seriesOf(capture, sensor), stillPeriods);
+    const result = estimateGyroBias(
+      seriesOf(capture, sensor),
+      stillPeriods,
+      accel_a ? { accel: accel_a, compassLogged: compass_a !== undefined } : undefined,
+    );
     checks.push(...gyroscopeChecks(sensor, result, thresholds));
     return {
       sensor,
@@ -241,6 +256,7 @@ export function analyseCapture(table: ColumnTable, options: AnalyseCaptureOption
           dipUnavailableReason: accel_a ? undefined : "There is no accelerometer in this capture to tell which way is down.",
           mounting: mag.mountingComparison,
           coupling: mag.currentCoupling,
+          fullScaleRangeUt: options.magnetometerRangesUt?.[mag.sensor],
         },
         thresholds,
       ),

@@ -4,17 +4,21 @@
  *
  * Steps, each in its own module:
  * 1. skip samples with a non-finite axis (refuse when most are);
- * 2. refuse data that cannot support a fit — too few samples, a ring, a small cap (fit-support);
- * 3. fit the full model with outlier rejection (outlier-rejection), falling back to the
+ * 2. leave out samples far off the sphere about a robust centre, and whole stretches of them
+ *    in a row (burst-rejection), so a short burst cannot pull the first fit;
+ * 3. refuse data that cannot support a fit — too few samples, a ring, a small cap (fit-support);
+ * 4. fit the full model with outlier rejection (outlier-rejection), falling back to the
  *    smaller models when the full one cannot be fitted;
- * 4. fit the three models on the kept samples and choose one (magnetometer-models);
- * 5. 95% intervals by a seeded bootstrap (bootstrap);
- * 6. clipping and quantisation (saturation);
- * 7. coverage of the corrected field directions, in body axes (sphere-coverage).
+ * 5. fit the three models on the kept samples and choose one (magnetometer-models);
+ * 6. 95% intervals by a seeded bootstrap (bootstrap);
+ * 7. clipping and quantisation (saturation), over the samples the pre-screen kept;
+ * 8. coverage of the corrected field directions, in body axes (sphere-coverage);
+ * 9. the stretches of consecutive samples left out, with their times (burst-rejection).
  * Units: whatever the field is given in (µT after unit conversion); every length-like
  * output is in the same units.
  */
 import { bootstrapIntervals } from "./bootstrap";
+import { clearRuns, describeRuns, findRejectedRuns, prescreenFarSamples } from "./burst-rejection";
 import { MODEL_PARAMETER_COUNT, ellipsoidScales, fitEllipsoidAlgebraic } from "./ellipsoid-fit";
 import { checkFitSupport } from "./fit-support";
 import { chooseMagModel, toCandidate } from "./magnetometer-models";
@@ -114,34 +118,41 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
     };
   }
 
+  // Far-off samples, and whole stretches of them in a row, go before anything is fitted.
+  const usable = prescreenFarSamples(field, eligible).kept;
+  clearRuns(usable, findRejectedRuns(eligible, usable));
+
   const largestModel: MagModel = choice === "auto" ? "full" : choice;
-  const support = checkFitSupport(field, eligible, SAMPLES_PER_PARAMETER * MODEL_PARAMETER_COUNT[largestModel]);
+  const support = checkFitSupport(field, usable, SAMPLES_PER_PARAMETER * MODEL_PARAMETER_COUNT[largestModel]);
   if (!support.ok) {
     return {
       ok: false,
       reason: support.reason,
       detail: support.detail,
-      coverage: roughCoverage(field, eligible, options),
+      coverage: roughCoverage(field, usable, options),
     };
   }
 
-  const robust = robustFit(field, eligible, ["full", "axis", "sphere"]);
+  const robust = robustFit(field, usable, ["full", "axis", "sphere"]);
   if (!("robust" in robust)) {
     return {
       ok: false,
       reason: "not-an-ellipsoid",
       detail: `No ellipsoid fits these samples (${robust.detail}). Check that the columns are one magnetometer's x, y and z.`,
-      coverage: roughCoverage(field, eligible, options),
+      coverage: roughCoverage(field, usable, options),
     };
   }
-  const { inliers, outliersRejected } = robust.robust;
+  const { inliers } = robust.robust;
+  let kept = 0;
+  for (let i = 0; i < total; i++) kept += inliers[i];
+  const outliersRejected = finite - kept;
   const chosen = chooseMagModel(field, choice, { mask: inliers }, [robust.robust.fit]);
   if (!chosen.ok) {
     return {
       ok: false,
       reason: "not-an-ellipsoid",
       detail: `The ${choice} model could not be fitted: ${chosen.detail}.`,
-      coverage: roughCoverage(field, eligible, options),
+      coverage: roughCoverage(field, usable, options),
     };
   }
   const { estimate, residualRms, samples } = chosen.choice.chosen;
@@ -179,12 +190,18 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
     scales,
     samplesUsed: samples,
     outliersRejected,
+    rejectedStretches: describeRuns(
+      field,
+      findRejectedRuns(eligible, inliers),
+      estimate,
+      options.time && options.time.length === total ? options.time : undefined,
+    ),
     nonFiniteSkipped,
     offsetInterval95,
     scaleInterval95,
     bootstrapResamples,
     candidates: chosen.choice.candidates.map(toCandidate),
-    saturation: analyseSaturation(field, eligible),
+    saturation: analyseSaturation(field, usable),
     coverage: coverageOf(field, estimate, inliers, options),
   };
   return calibration;

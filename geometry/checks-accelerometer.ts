@@ -4,7 +4,9 @@
 import type { AccelerometerResult } from "./accelerometer-fit";
 import { FACE_WORDS, type AccelerometerPose, type FaceSummary } from "./accelerometer-poses";
 import { fmt, gradedCheck, skippedCheck } from "./checks-common";
-import { STILL_PERIOD_DEFAULTS } from "./still-periods";
+import { holdGeometry } from "./hold-geometry";
+import { sentence, sentences } from "./sentence";
+import { MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S, STILL_PERIOD_DEFAULTS } from "./still-periods";
 import type { GyroBias, GyroBiasRefusal } from "./gyro-bias";
 import type { BodyFace } from "./magnetometer-types";
 import type { ThresholdTable } from "./thresholds";
@@ -234,26 +236,56 @@ export function facesCheck(sensor: string, faces: FaceSummary, thresholds: Thres
   });
 }
 
+/**
+ * How square the holds were, judged by what their tilt does to the fit: the growth of the
+ * least certain offset or scale term over six square holds (hold-geometry.ts). A hold tens
+ * of degrees off its face still pins its axis; a set of holds that leaves an axis barely seen
+ * does not. The worst angle is reported alongside, after calibration when there is one (a
+ * raw offset alone can look like a few degrees of tilt).
+ */
 export function tiltCheck(sensor: string, input: AccelerometerCheckInput, thresholds: ThresholdTable): Check {
-  // After calibration when there is one: a raw offset alone can look like a few degrees of tilt.
-  const angles = input.result.ok
-    ? input.result.correctedPoses.map((pose) => ({ face: pose.face, angle: pose.angleFromAxisDeg }))
-    : input.poses.map((pose) => ({ face: pose.face, angle: pose.angleFromAxisDeg }));
-  if (angles.length === 0) return skippedCheck(thresholds, "accel.tilt", "Holds square to a face", sensor, "No still hold was found.");
-  const worst = angles.reduce((a, b) => (b.angle > a.angle ? b : a));
+  const title = "Holds square to a face";
+  const fitted = input.result.ok ? input.result.correctedPoses : null;
+  const holds = fitted
+    ? fitted.map((pose) => ({ face: pose.face, angle: pose.angleFromAxisDeg, reading: pose.specificForce }))
+    : input.poses.map((pose) => ({ face: pose.face, angle: pose.angleFromAxisDeg, reading: pose.meanSpecificForce }));
+  if (holds.length === 0) return skippedCheck(thresholds, "accel.tilt", title, sensor, "No still hold was found.");
+  const worst = holds.reduce((a, b) => (b.angle > a.angle ? b : a));
+  const angleWords = `The least square hold, ${faceName(worst.face)}, was ${fmt(worst.angle)}° from a right angle${fitted ? " after calibration" : ""}`;
+  if (holds.length < 6) {
+    return skippedCheck(
+      thresholds,
+      "accel.tilt",
+      title,
+      sensor,
+      sentences(angleWords, `Only ${holds.length} holds were found, fewer than the six a fit needs, so what their tilt does to it cannot be judged`),
+    );
+  }
+  const geometry = holdGeometry(holds.map((hold) => hold.reading));
+  const remedy = "Rest the vehicle against a square edge (a box or the corner of a table) for each face.";
+  if (!Number.isFinite(geometry.worstInflation)) {
+    return {
+      ...skippedCheck(thresholds, "accel.tilt", title, sensor, sentences(angleWords, "Together the holds do not pin down every offset and scale"), remedy),
+      status: "fail",
+    };
+  }
   return gradedCheck(thresholds, {
     id: "accel.tilt",
-    title: "Holds square to a face",
+    title,
     sensor,
-    measured: worst.angle,
-    digits: 1,
+    measured: geometry.worstInflation,
+    digits: 2,
     explain: (status) => ({
-      explanation: `The least square hold, ${faceName(worst.face)}, was ${fmt(worst.angle)}° from a right angle${input.result.ok ? " after calibration" : ""}.`,
-      remedy: status === "pass" ? null : "Rest the vehicle against a square edge (a box or the corner of a table) for each face.",
+      explanation: sentences(
+        angleWords,
+        `Tilted as they were, the holds leave the least certain term (${geometry.worstTerm}) ${fmt(geometry.worstInflation, 2)} times as uncertain as six square holds would`,
+      ),
+      remedy: status === "pass" ? null : remedy,
     }),
   });
 }
 
+/** How still the holds were: the wobble of the shakiest hold above the sensor's own noise floor (accelerometer-poses.ts). */
 export function wobbleCheck(sensor: string, poses: AccelerometerPose[], thresholds: ThresholdTable): Check {
   if (poses.length === 0) return skippedCheck(thresholds, "accel.wobble", "Holds steady", sensor, "No still hold was found.");
   const worst = poses.reduce((a, b) => (b.wobbleDeg > a.wobbleDeg ? b : a));
@@ -263,7 +295,7 @@ export function wobbleCheck(sensor: string, poses: AccelerometerPose[], threshol
     sensor,
     measured: worst.wobbleDeg,
     explain: (status) => ({
-      explanation: `The shakiest hold, ${faceName(worst.face)}, wobbled ${fmt(worst.wobbleDeg, 2)}° RMS over ${fmt(worst.durationS)} s.`,
+      explanation: `The shakiest hold, ${faceName(worst.face)}, wobbled ${fmt(worst.wobbleDeg, 2)}° RMS over ${fmt(worst.durationS)} s beyond the sensor's own noise, which alone would show ${fmt(worst.noiseFloorDeg, 2)}°.`,
       remedy:
         status === "pass"
           ? null
@@ -272,19 +304,27 @@ export function wobbleCheck(sensor: string, poses: AccelerometerPose[], threshol
   });
 }
 
+function setAsideWords(count: number): string | null {
+  if (count === 0) return null;
+  return `${count === 1 ? "One still period was" : `${count} still periods were`} left out: the gyroscope read more than ${fmt(MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S / DEG, 0)} °/s about the vertical there, which with no compass logged could not be separated from a steady turn`;
+}
+
 /** Bias, noise and the change of bias between still holds of a gyroscope at rest. */
 export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefusal, thresholds: ThresholdTable): Check[] {
   if (!result.ok) {
+    const detail = sentence(result.detail);
     return [
       skippedCheck(
         thresholds,
         "gyro.bias",
         "Gyroscope bias",
         sensor,
-        result.detail,
-        "Hold the vehicle still for a few seconds at the start of the capture.",
+        detail,
+        result.reason === "steady-turn"
+          ? "Hold the vehicle still for a few seconds at the start of the capture, or log the compass with the gyroscope so that a turn can be told from a bias."
+          : "Hold the vehicle still for a few seconds at the start of the capture.",
       ),
-      skippedCheck(thresholds, "gyro.noise", "Gyroscope noise", sensor, result.detail),
+      skippedCheck(thresholds, "gyro.noise", "Gyroscope noise", sensor, detail),
     ];
   }
   const biasDeg = result.biasMagnitudeRadPerS / DEG;
@@ -297,7 +337,10 @@ export function gyroscopeChecks(sensor: string, result: GyroBias | GyroBiasRefus
       sensor,
       measured: biasDeg,
       explain: (status) => ({
-        explanation: `At rest the gyroscope reads ${fmt(biasDeg, 2)} °/s (x ${fmt(result.biasRadPerS[0] / DEG, 2)}, y ${fmt(result.biasRadPerS[1] / DEG, 2)}, z ${fmt(result.biasRadPerS[2] / DEG, 2)}).`,
+        explanation: sentences(
+          `At rest the gyroscope reads ${fmt(biasDeg, 2)} °/s (x ${fmt(result.biasRadPerS[0] / DEG, 2)}, y ${fmt(result.biasRadPerS[1] / DEG, 2)}, z ${fmt(result.biasRadPerS[2] / DEG, 2)})`,
+          setAsideWords(result.periodsSetAside),
+        ),
         remedy:
           status === "pass"
             ? null

@@ -10,6 +10,8 @@ import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { fmt, gradedCheck, skippedCheck } from "./checks-common";
 import type { DipMeasurement } from "./dip-check";
 import type { MagneticReference } from "./magnetic-reference";
+import { magnetometerRange, rangeHeadroom } from "./magnetometer-range";
+import { modelFieldBand } from "./plausible-field";
 import type {
   CoverageResult,
   CurrentCouplingResult,
@@ -22,6 +24,7 @@ import type { Check, Mat3 } from "./types";
 import { angleBetweenRotationsDeg } from "./rotation";
 import { MOTOR_SAFETY_CAUTION } from "./motor-safety";
 import { sentences, withoutFinalStop } from "./sentence";
+import { rejectedStretchWords } from "./burst-words";
 import { norm } from "./vector";
 
 const SITE_ADVICE =
@@ -48,6 +51,8 @@ export interface MagnetometerCheckInput {
   dipUnavailableReason?: string;
   mounting: MountingComparison | null;
   coupling: CurrentCouplingResult | null;
+  /** The compass's full-scale range, ± µT per axis; absent or null when not stated (the default is assumed). */
+  fullScaleRangeUt?: number | null;
 }
 
 /** Every magnetometer check for one sensor, in the order a technician reads them. */
@@ -68,7 +73,7 @@ export function magnetometerChecks(input: MagnetometerCheckInput, thresholds: Th
       residualCheck(sensor, result, thresholds),
       fieldVsModelCheck(sensor, result, input.unitsPhysical, input.reference, thresholds),
       fieldPlausibleCheck(sensor, result, input.unitsPhysical, thresholds),
-      hardIronCheck(sensor, result, thresholds),
+      hardIronCheck(sensor, result, input.unitsPhysical, input.fullScaleRangeUt, thresholds),
       softIronCheck(sensor, result, thresholds),
       saturationCheck(sensor, result, thresholds),
       dipCheck(sensor, input.dip, input.reference, thresholds, input.dipUnavailableReason),
@@ -159,7 +164,10 @@ export function fitCheck(sensor: string, result: MagnetometerResult): Check {
     measured: result.model,
     threshold: null,
     unit: null,
-    explanation: `Fitted with the ${MODEL_WORDS[result.model]} model (${result.modelReason}); ${result.samplesUsed} samples used, ${result.outliersRejected} rejected as outliers.`,
+    explanation: sentences(
+      `Fitted with the ${MODEL_WORDS[result.model]} model (${result.modelReason}); ${result.samplesUsed} samples used, ${result.outliersRejected} rejected as outliers`,
+      rejectedStretchWords(result.rejectedStretches),
+    ),
     remedy: null,
     source: "common practice",
   };
@@ -257,7 +265,7 @@ export function fieldPlausibleCheck(
     digits: 1,
     explain: (status) => ({
       explanation:
-        `The fitted field is ${fmt(result.fieldStrength)} µT. The Earth's field at the surface lies between about 22 and 67 µT everywhere.` +
+        `The fitted field is ${fmt(result.fieldStrength)} µT. ${bandWords()}` +
         (status === "fail"
           ? " A value this far outside is almost always a unit mistake (gauss, milligauss, nanotesla or raw counts)."
           : ""),
@@ -269,20 +277,69 @@ export function fieldPlausibleCheck(
   });
 }
 
-export function hardIronCheck(sensor: string, result: MagnetometerCalibration, thresholds: ThresholdTable): Check {
-  const percent = (100 * norm(result.hardIronOffset)) / result.fieldStrength;
+/** Where the model puts the Earth's main field, in a sentence. */
+function bandWords(): string {
+  const band = modelFieldBand();
+  return `${band.modelName} puts the Earth's main field between ${fmt(band.weakest.strengthMicrotesla)} and ${fmt(band.strongest.strengthMicrotesla)} µT everywhere from ${-band.lowestAltitudeM} m below sea level to ${band.highestAltitudeM / 1000} km up, from the start of ${band.fromYear} to the start of ${band.toYear}.`;
+}
+
+/**
+ * The offset judged by the headroom it leaves in the sensor's range (the offset as a share of
+ * the Earth's field is stated as information: it depends on the site).
+ */
+export function hardIronCheck(
+  sensor: string,
+  result: MagnetometerCalibration,
+  unitsPhysical: boolean,
+  fullScaleRangeUt: number | null | undefined,
+  thresholds: ThresholdTable,
+): Check {
+  const title = "Hard-iron offset";
+  const offset = norm(result.hardIronOffset);
+  const percentOfField = (100 * offset) / result.fieldStrength;
+  const origin = "It comes from magnetised parts and steady currents that turn with the vehicle";
+  if (!unitsPhysical) {
+    return skippedCheck(
+      thresholds,
+      "mag.hard-iron",
+      title,
+      sensor,
+      sentences(
+        `The constant offset is ${fmt(percentOfField, 0)}% of the Earth's field as this sensor sees it`,
+        origin,
+        "The magnetometer's units are not known, so the offset cannot be set against the sensor's range",
+      ),
+      "State the units (for example µT, mG, or counts with a scale).",
+    );
+  }
+  const range = magnetometerRange(sensor, fullScaleRangeUt);
+  const headroom = rangeHeadroom(result.hardIronOffset, result.fieldStrength, result.scales, range.rangeUt);
+  const rangeWords = range.stated
+    ? `the sensor's ±${fmt(range.rangeUt, 0)} µT range`
+    : `the range (assumed ±${fmt(range.rangeUt, 0)} µT, the common range; set the sensor's range on its record)`;
+  const reach =
+    headroom.percentLeft >= 0
+      ? `With the field added, the ${headroom.peakAxis} axis reads up to ${fmt(headroom.peakUt)} µT in some attitude, leaving ${fmt(headroom.percentLeft, 0)}% of ${rangeWords}`
+      : `With the field added, the ${headroom.peakAxis} axis would read up to ${fmt(headroom.peakUt)} µT in some attitude, beyond ${rangeWords}, so readings in those attitudes clip`;
   return gradedCheck(thresholds, {
     id: "mag.hard-iron",
-    title: "Hard-iron offset",
+    title,
     sensor,
-    measured: percent,
+    measured: headroom.percentLeft,
     digits: 0,
     explain: (status) => ({
-      explanation: `The constant offset is ${fmt(percent, 0)}% of the Earth's field as this sensor sees it. It comes from magnetised parts and steady currents that turn with the vehicle.`,
+      explanation: sentences(
+        `The constant offset is ${fmt(offset)} µT, ${fmt(percentOfField, 0)}% of the Earth's field as this sensor sees it`,
+        origin,
+        reach,
+      ),
       remedy:
         status === "pass"
           ? null
-          : "Look for magnetised screws, a speaker or motor magnet, or power wiring close to the compass; move the compass away (a mast helps) and demagnetise tools before working near it.",
+          : sentences(
+              "Look for magnetised screws, a speaker or motor magnet, or power wiring close to the compass; move the compass away (a mast helps) and demagnetise tools before working near it",
+              range.stated ? null : "If the sensor's range is wider than assumed, set it on the sensor's record",
+            ),
     }),
   });
 }

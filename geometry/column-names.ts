@@ -1,7 +1,9 @@
 /**
  * Recognises the column names people and loggers give to calibration captures and maps them
  * to the engine's canonical fields ("time", "compass_a.x", "accel_b.z", "gyro_a.y", "current",
- * "throttle"), guessing the unit from a suffix such as "(uT)", "[deg/s]" or "_ms".
+ * "throttle"), reading the unit from a suffix such as "(uT)", "[deg/s]", "_ms", "_nT" or
+ * "_m/s2": in brackets, or after the last underscore or space, written as it would be on its
+ * own (`compassX_nT`, `MagY[mG]`, `accZ_g`, `gyroX_dps`, `AccelX[m/s^2]`, `gyroY_rad/s`).
  *
  * Matching ignores case, spaces, underscores, dashes and dots, and splits camelCase, so
  * `Mag X (uT)`, `mag_x`, `magX` and `MAG.X` are one spelling. Sensors are given letters in
@@ -116,6 +118,21 @@ function bracketUnitOf(header: string): string | null {
   return BRACKET_UNIT.exec(header.trim())?.[2] ?? null;
 }
 
+/**
+ * A unit written after the last underscore or space, kept as written so that its own case and
+ * slashes survive: "compassX_nT" → "compassX" and "nT", "accelX_m/s2" → "accelX" and "m/s2".
+ */
+const SEPARATED_UNIT = /^(.*[^\s_])[\s_]+([^\s_]+)$/;
+
+/** The lower-case words of a name: camelCase split, separators dropped. */
+function nameTokens(text: string): string[] {
+  return text
+    .replace(/([a-z0-9])([A-Z])/g, "$1_$2")
+    .toLowerCase()
+    .split(/[\s_.:\-/]+/)
+    .filter((token) => token.length > 0);
+}
+
 /** Reads one column name; returns null when it is not a spelling we know. */
 function matchHeader(header: string): NameMatch | null {
   let text = header.trim();
@@ -125,15 +142,18 @@ function matchHeader(header: string): NameMatch | null {
     text = bracket[1];
     bracketUnit = bracket[2];
   }
-  const tokens = text
-    .replace(/([a-z0-9])([A-Z])/g, "$1_$2")
-    .toLowerCase()
-    .split(/[\s_.:\-/]+/)
-    .filter((token) => token.length > 0);
+  const tokens = nameTokens(text);
   if (tokens.length === 0) return null;
 
   const whole = matchCompact(tokens.join(""));
   if (whole) return { ...whole, unitText: bracketUnit ?? whole.unitText };
+  // A unit after an underscore or space, as written: "compassX_nT", "gyroY_rad/s", "accX_ms-2".
+  const separated = bracketUnit === null ? SEPARATED_UNIT.exec(text) : null;
+  if (separated) {
+    const named = matchCompact(nameTokens(separated[1]).join(""));
+    const kind = named && familyKind(named.family);
+    if (named && kind && !named.unitText && parseUnitForKind(separated[2], kind)) return { ...named, unitText: separated[2] };
+  }
   // A trailing unit word ("mag_x_ut", "gyro_x_dps", "time_ms") is tried as a unit.
   if (tokens.length > 1) {
     const withoutLast = matchCompact(tokens.slice(0, -1).join(""));
@@ -187,9 +207,13 @@ export function recogniseColumns(headers: string[], map: Record<string, CaptureF
     if (mapped !== undefined) {
       columns[index].how = mapped === "ignore" ? "ignored" : "map";
       columns[index].field = mapped === "ignore" ? null : mapped;
-      const unitText = matchHeader(header)?.unitText ?? bracketUnitOf(header);
       const kind = mapped === "ignore" ? null : kindOfField(mapped);
-      if (unitText && kind) columns[index].unitHint = parseUnitForKind(unitText, kind);
+      // A mapped column may still say its unit: "Sensor A (nT)", "chan3_mG".
+      const unitTexts = [matchHeader(header)?.unitText, bracketUnitOf(header), SEPARATED_UNIT.exec(header.trim())?.[2]];
+      for (const unitText of unitTexts) {
+        if (columns[index].unitHint || !unitText || !kind) continue;
+        columns[index].unitHint = parseUnitForKind(unitText, kind);
+      }
       return;
     }
     if (isCanonicalField(header.trim())) {

@@ -14,24 +14,69 @@
  *
  * No N×9 Jacobian is stored: every pass streams the samples and sums what it needs
  * (normal-equations.ts).
- * Captures longer than twice `subsampleLimit` first iterate on an evenly strided subsample;
- * the steps that follow take their gradient and cost from every sample and their
- * curvature JᵀJ from the subsample (scaled to the full count) — an inexact Gauss–Newton step
- * whose curvature is off by about 1/√(subsample size), so it still converges in a few steps
- * while the per-sample work stays at the nine gradient sums.
+ * Long selections (more than LONG_CAPTURE_FACTOR × `subsampleLimit` samples) first iterate to
+ * convergence on a well-spread subsample (spread-subsample.ts), then polish on every sample:
+ * each polishing step takes its gradient and cost from all samples and its curvature JᵀJ
+ * from the subsample, scaled to the full count. The answer is the full-sample least-squares
+ * optimum (to a hundredth of its standard error, the same test as the exact iterations), and
+ * its residual is summed over every sample; `subsample: false` iterates on every sample
+ * throughout, for comparison.
  */
 import type { EllipsoidEstimate } from "./ellipsoid-fit";
 import type { MagModel } from "./magnetometer-types";
 import { sumRadialCost, sumRadialNormalEquations, type Normalisation, type RadialSums, type SampleSelection } from "./normal-equations";
+import { SPREAD_SUBSAMPLE_SIZE, spreadSubsample, type SpreadSubsample } from "./spread-subsample";
 import type { Mat3, Vec3, Vec3Series } from "./types";
 import { EPSILON, det3, scaleMat, sub } from "./vector";
 
 export interface RefineOptions {
   /** Default 50. */
   maxIterations?: number;
-  /** Captures longer than twice this first iterate on a strided subsample of this size. Default 40,000. */
+  /**
+   * Selections longer than LONG_CAPTURE_FACTOR times this first iterate on a well-spread
+   * subsample of this size (spread-subsample.ts). Default SPREAD_SUBSAMPLE_SIZE.
+   */
   subsampleLimit?: number;
+  /**
+   * False: every iteration on every sample with the exact JᵀJ, however long the capture (the
+   * reference the fast path is checked against). Default true.
+   */
+  subsample?: boolean;
+  /** A subsample of these same selected samples, already made (the caller's algebraic start used it). */
+  spread?: SpreadSubsample;
 }
+
+/**
+ * A selection is long when it holds more than this many times `subsampleLimit` samples:
+ * below that, iterating on every sample costs little more than the subsample stage would.
+ * Engineering choice, tuned on simulated captures.
+ */
+export const LONG_CAPTURE_FACTOR = 2;
+
+/**
+ * Most polishing steps on every sample after the subsample stage. Engineering choice, tuned
+ * on simulated captures: the subsample's optimum lies some ten standard errors from the
+ * full one, the first step lands within a few tenths, and the second or third is the last;
+ * needing more means the subsample's curvature is not a good stand-in, and exact iterations
+ * take over.
+ */
+export const MAX_POLISH_STEPS = 4;
+
+/**
+ * Convergence: the step is a hundredth of the estimate's own standard error, i.e. its squared
+ * Mahalanobis length (δᵀJᵀJδ over the residual variance) is below 1e-4. Engineering choice.
+ */
+export const STEP_TOLERANCE_SQUARED = 1e-4;
+
+/**
+ * Convergence of the polishing steps: a step under a tenth of a standard error (a fortieth
+ * of the 95% interval's width) is the last one. Because each polishing step shrinks the
+ * distance to the optimum some twentyfold or more, taking that last step leaves the estimate
+ * within a few thousandths of a standard error of the full-sample optimum, as close as the
+ * exact iterations get, for one pass over every sample fewer. Engineering choice, tuned on
+ * simulated captures.
+ */
+export const POLISH_TOLERANCE_SQUARED = 1e-2;
 
 export interface RefineResult {
   estimate: EllipsoidEstimate;
@@ -143,18 +188,12 @@ function iterate(
   model: MagModel,
   start: Float64Array,
   selection: SampleSelection,
-  curvatureSelection: SampleSelection | null,
   maxIterations: number,
   dampingStart: number,
 ): IterationResult {
   const linearise = (at: Float64Array): RadialSums => {
     loadShape(model, at);
-    if (!curvatureSelection) return sumRadialNormalEquations(series, norm, at, shape, selection, jtr, jtj);
-    const sampled = sumRadialNormalEquations(series, norm, at, shape, curvatureSelection, jtr, jtj);
-    const full = sumRadialNormalEquations(series, norm, at, shape, selection, jtr, null);
-    const ratio = full.count / Math.max(1, sampled.count);
-    for (let i = 0; i < 81; i++) jtj[i] *= ratio;
-    return full;
+    return sumRadialNormalEquations(series, norm, at, shape, selection, jtr, jtj);
   };
   let p = start;
   let current = linearise(p);
@@ -182,7 +221,7 @@ function iterate(
     // still many standard errors. Parameters are O(1) here, so 1e-10 is round-off.
     const variance = current.cost / Math.max(1, current.count - p.length);
     // (Only for near Gauss–Newton steps: heavy damping shrinks a step without it being done.)
-    if (stepSize < 1e-10 * largest || (lambda <= 1e-2 && curvatureNorm(model, step) < 1e-4 * variance)) {
+    if (stepSize < 1e-10 * largest || (lambda <= 1e-2 && curvatureNorm(model, step) < STEP_TOLERANCE_SQUARED * variance)) {
       converged = true;
       break;
     }
@@ -208,6 +247,71 @@ function iterate(
     }
   }
   return { p, cost: current.cost, count: current.count, iterations, converged };
+}
+
+/**
+ * The spread subsample a long selection is first refined on: `options.spread` when given,
+ * null for a short selection or when `options.subsample` is false.
+ */
+export function longCaptureSubsample(series: Vec3Series, selection: SampleSelection, options: RefineOptions = {}): SpreadSubsample | null {
+  if (options.subsample === false) return null;
+  if (options.spread) return options.spread;
+  const limit = options.subsampleLimit ?? SPREAD_SUBSAMPLE_SIZE;
+  const total = selection.indices ? selection.indices.length : series.x.length;
+  if (total <= LONG_CAPTURE_FACTOR * limit) return null;
+  const spread = spreadSubsample(series, selection, limit);
+  return spread.selectedCount > LONG_CAPTURE_FACTOR * limit ? spread : null;
+}
+
+/**
+ * Gauss–Newton steps from the subsample's optimum with the gradient and cost of every sample
+ * and the curvature of the subsample, scaled to the full count: an inexact Gauss–Newton step
+ * whose curvature is off by about 1/√(subsample size), so each step shrinks the distance to
+ * the full-sample optimum a hundredfold. One pass over all samples per step; the pass that
+ * finds the step small enough also gives the cost there, so residual and score cover every
+ * sample. Not converged when a step fails to lower the cost or MAX_POLISH_STEPS run out.
+ */
+function polish(
+  spread: SpreadSubsample,
+  series: Vec3Series,
+  norm: Normalisation,
+  model: MagModel,
+  start: Float64Array,
+  selection: SampleSelection,
+): IterationResult {
+  loadShape(model, start);
+  const sampled = sumRadialNormalEquations(spread.series, norm, start, shape, {}, jtr, jtj);
+  const ratio = spread.selectedCount / Math.max(1, sampled.count);
+  for (let i = 0; i < 81; i++) jtj[i] *= ratio;
+  let p = start;
+  let current = sumRadialNormalEquations(series, norm, p, shape, selection, jtr, null);
+  let iterations = 0;
+  while (iterations < MAX_POLISH_STEPS) {
+    iterations++;
+    const step = dampedStep(model, 0);
+    if (!step) break;
+    let largest = 1;
+    let stepSize = 0;
+    for (let i = 0; i < p.length; i++) {
+      largest = Math.max(largest, Math.abs(p[i]));
+      stepSize = Math.max(stepSize, Math.abs(step[i]));
+    }
+    const variance = current.cost / Math.max(1, current.count - p.length);
+    const predictedGain = curvatureNorm(model, step);
+    const trial = p.map((v, i) => v + step[i]);
+    if (stepSize < 1e-10 * largest || predictedGain < POLISH_TOLERANCE_SQUARED * variance) {
+      // The last step is taken without another pass: it is a tenth of a standard error at
+      // most, and the cost it leaves is the one just summed less the Gauss–Newton gain
+      // δᵀJᵀJδ (below a hundredth of one sample's squared residual).
+      return { p: trial, cost: Math.max(0, current.cost - predictedGain), count: current.count, iterations, converged: true };
+    }
+    loadShape(model, trial);
+    const next = sumRadialNormalEquations(series, norm, trial, shape, selection, jtr, null);
+    if (!(next.cost <= current.cost)) break;
+    p = trial;
+    current = next;
+  }
+  return { p, cost: current.cost, count: current.count, iterations, converged: false };
 }
 
 function toParameters(estimate: EllipsoidEstimate, norm: Normalisation): Float64Array {
@@ -248,19 +352,6 @@ function fromParameters(model: MagModel, p: Float64Array, norm: Normalisation): 
   return { model, hardIronOffset: offset, softIronMatrix: scaleMat(m, 1 / unit), fieldStrength: norm.scale / unit };
 }
 
-/** Evenly strided subset of the selected samples, about `limit` long. */
-function stridedSubsample(series: Vec3Series, selection: SampleSelection, limit: number): Int32Array {
-  const { mask, indices } = selection;
-  const total = indices ? indices.length : series.x.length;
-  const chosen: number[] = [];
-  const stride = total / limit;
-  for (let t = 0; t < limit; t++) {
-    const i = indices ? indices[Math.floor(t * stride)] : Math.floor(t * stride);
-    if (!mask || mask[i] !== 0) chosen.push(i);
-  }
-  return Int32Array.from(chosen);
-}
-
 /**
  * Refine an ellipsoid estimate (from the algebraic fit) by minimising the radial error of
  * the selected samples; keeps the model of `initial`. Units: those of the input.
@@ -272,24 +363,29 @@ export function refineEllipsoid(
   options: RefineOptions = {},
 ): RefineResult {
   const maxIterations = options.maxIterations ?? 50;
-  const limit = options.subsampleLimit ?? 40_000;
   // Normalised coordinates centred on the starting offset and scaled by its radius: the
   // samples sit near the unit sphere and M near W, which keeps the normal equations well
   // conditioned without a pass over the data.
   const norm: Normalisation = { centre: initial.hardIronOffset, scale: initial.fieldStrength, count: 0 };
   let p = toParameters(initial, norm);
   let iterations = 0;
-  const total = selection.indices ? selection.indices.length : series.x.length;
-  let curvatureSelection: SampleSelection | null = null;
-  if (total > 2 * limit) {
-    curvatureSelection = { indices: stridedSubsample(series, selection, limit) };
-    const coarse = iterate(series, norm, initial.model, p, curvatureSelection, null, maxIterations, 1e-3);
+  let fine: IterationResult | null = null;
+  const spread = longCaptureSubsample(series, selection, options);
+  if (spread) {
+    const coarse = iterate(spread.series, norm, initial.model, p, {}, maxIterations, 1e-3);
     p = coarse.p;
     iterations += coarse.iterations;
+    const polished = polish(spread, series, norm, initial.model, p, selection);
+    iterations += polished.iterations;
+    p = polished.p;
+    if (polished.converged) fine = polished;
   }
-  // Small damping after a coarse stage: from its optimum these are Gauss–Newton steps.
-  const fine = iterate(series, norm, initial.model, p, selection, curvatureSelection, maxIterations, curvatureSelection ? 1e-9 : 1e-3);
-  iterations += fine.iterations;
+  // Without a subsample, or when polishing did not settle: LM on every sample, exact JᵀJ.
+  if (!fine) {
+    const exact = iterate(series, norm, initial.model, p, selection, maxIterations, spread ? 1e-9 : 1e-3);
+    iterations += exact.iterations;
+    fine = exact;
+  }
   const estimate = fromParameters(initial.model, fine.p, norm) ?? initial;
   const relativeRms = fine.count > 0 ? Math.sqrt(fine.cost / fine.count) : 0;
   return { estimate, residualRms: relativeRms * estimate.fieldStrength, iterations, converged: fine.converged };

@@ -131,6 +131,7 @@ export function analyseMagnetometers(input: MagnetometerAnalysisInput): Magnetom
       model: input.model,
       seed: input.seed + index,
       bootstrap: input.bootstrap,
+      ...(capture.columns.time ? { time: capture.columns.time } : {}),
       ...(reference ? { inclinationDeg: reference.inclinationDeg } : {}),
     });
 

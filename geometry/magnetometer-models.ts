@@ -16,7 +16,7 @@
  * since the bigger model contains the smaller one.
  */
 import { MODEL_PARAMETER_COUNT, fitEllipsoidAlgebraic, type EllipsoidEstimate } from "./ellipsoid-fit";
-import { refineEllipsoid, type RefineOptions } from "./ellipsoid-refine";
+import { longCaptureSubsample, refineEllipsoid, type RefineOptions } from "./ellipsoid-refine";
 import type { MagModel, MagModelCandidate, MagModelChoice } from "./magnetometer-types";
 import { selectedCount, type SampleSelection } from "./normal-equations";
 import type { Vec3Series } from "./types";
@@ -43,8 +43,10 @@ export function bayesianInformationCriterion(rss: number, n: number, k: number):
 
 /**
  * Fit one model: algebraic fit for a start (or the given `start`, e.g. the full-sample fit
- * when refitting a bootstrap resample), then geometric refinement. Input units are kept
- * throughout.
+ * when refitting a bootstrap resample), then geometric refinement. On a long selection the
+ * algebraic start comes from the same well-spread subsample the refinement first iterates
+ * on (it is only a start: the refinement ends at the optimum over every sample); with
+ * `refine.subsample` false both use every sample. Input units are kept throughout.
  */
 export function fitMagModel(
   series: Vec3Series,
@@ -54,12 +56,15 @@ export function fitMagModel(
   start?: EllipsoidEstimate,
 ): ModelFitResult {
   let initial = start;
+  let options = refine;
   if (!initial || initial.model !== model) {
-    const algebraic = fitEllipsoidAlgebraic(series, model, selection);
+    const spread = longCaptureSubsample(series, selection, refine);
+    const algebraic = spread ? fitEllipsoidAlgebraic(spread.series, model) : fitEllipsoidAlgebraic(series, model, selection);
     if (!algebraic.ok) return algebraic;
     initial = algebraic.estimate;
+    if (spread) options = { ...refine, spread };
   }
-  const refined = refineEllipsoid(series, initial, selection, refine);
+  const refined = refineEllipsoid(series, initial, selection, options);
   const samples = selectedCount(series, selection);
   const parameterCount = MODEL_PARAMETER_COUNT[model];
   const rss = refined.residualRms * refined.residualRms * samples;

@@ -100,7 +100,10 @@ export interface MagnetometerCalibration {
   /** Half-width of the raw ellipsoid along each body axis divided by fieldStrength (≈1 with little soft iron). */
   scales: Vec3;
   samplesUsed: number;
+  /** Usable samples left out of the fit, whether alone or in rejected stretches. */
   outliersRejected: number;
+  /** Runs of consecutive rejected samples (glitch bursts), in time order; isolated outliers are not listed. */
+  rejectedStretches: RejectedStretch[];
   /** Samples skipped because an axis was NaN or infinite. */
   nonFiniteSkipped: number;
   offsetInterval95: [Interval95, Interval95, Interval95];
@@ -110,6 +113,21 @@ export interface MagnetometerCalibration {
   candidates: MagModelCandidate[];
   saturation: SaturationReport;
   coverage: CoverageResult;
+}
+
+/** A run of consecutive samples left out of the fit (burst-rejection.ts). */
+export interface RejectedStretch {
+  /** First sample of the stretch and one past its last (indices into the capture). */
+  startIndex: number;
+  endIndex: number;
+  /** Samples left out within the stretch. */
+  samples: number;
+  /** Time of the first sample, seconds; null when no time was given. */
+  startS: number | null;
+  /** Length of the stretch, seconds (one sample period per sample); null when no time was given. */
+  durationS: number | null;
+  /** Median distance of its readings from the fitted centre, after correction, as a multiple of the fitted field strength. */
+  fieldMultiple: number;
 }
 
 export type MagnetometerRefusalReason = "too-few-samples" | "planar" | "small-cap" | "non-finite" | "not-an-ellipsoid";
@@ -140,6 +158,8 @@ export interface CalibrateMagnetometerOptions {
    * are given in body axes. Default identity (the log is already in the body frame).
    */
   mountingRotation?: Mat3;
+  /** Time of each sample, seconds, so rejected stretches can be reported in seconds; without it they are given as sample numbers. */
+  time?: Float64Array;
 }
 
 /**
@@ -204,6 +224,9 @@ export type SoftIronLevel = "none" | "mild" | "strong";
 /** Rotation paths of a simulated capture; "none" keeps the vehicle still (e.g. a motor-run capture). */
 export type RotationPath = "full" | "yaw-only" | "upper-half" | "partial" | "none";
 
+/** Paths the simulator offers that teaching scenarios do not (yet): "steady-spin", a steady turn on level ground. */
+export type SimulatorOnlyPath = "steady-spin";
+
 /** Which body axis points down during a still hold: "+z" level, "-z" upside down, "+x" nose down, … */
 export type BodyFace = "+x" | "-x" | "+y" | "-y" | "+z" | "-z";
 
@@ -229,6 +252,32 @@ export interface SimulatedMagnetometerSpec {
   clipLevel?: number;
   /** Readings are rounded to multiples of this step, µT. Default none. */
   quantisationStep?: number;
+  /** Stretches of readings far off the sphere, in a row (see GlitchBurstSpec). Default none. */
+  glitchBursts?: GlitchBurstSpec[];
+}
+
+/**
+ * A stretch of bad readings inside a capture.
+ * - "magnet": a strong field fixed in the site frame is added, as when a magnet or a phone is
+ *   carried past the vehicle; its direction sweeps 90° about the vertical over the stretch,
+ *   so the body-frame disturbance varies slowly as the vehicle turns.
+ * - "stuck": the sensor returns one fixed value (a loose connector, a garbage register).
+ */
+export interface GlitchBurstSpec {
+  kind: "magnet" | "stuck";
+  /** Start, seconds from the start of the capture. */
+  startS: number;
+  durationS: number;
+  /** Size of the added field ("magnet") or of the fixed value ("stuck") as a multiple of the site field strength. Default 5. */
+  fieldMultiple?: number;
+  /** Unit direction of the added field (site frame, NED) or of the fixed value (sensor frame). Default an invented one. */
+  direction?: Vec3;
+}
+
+/** A simulated glitch burst as it was made: samples startIndex (inclusive) to endIndex (exclusive). */
+export interface GlitchBurstTruth extends Required<GlitchBurstSpec> {
+  startIndex: number;
+  endIndex: number;
 }
 
 export interface SimulatedHoldsSpec {
@@ -250,7 +299,7 @@ export interface CaptureSpec {
   /** Length of the rotation path in seconds. Default 60. */
   pathSeconds?: number;
   /** Default "full". */
-  path?: RotationPath;
+  path?: RotationPath | SimulatorOnlyPath;
   /** Site field in the NED frame, µT. Default an invented mid-latitude value. */
   siteFieldNed?: Vec3;
   /** Gravity magnitude, m/s². Default 9.80665 (standard gravity, CGPM 1901). */
@@ -291,6 +340,8 @@ export interface CaptureTruthMagnetometer {
   clipLevel: number | null;
   quantisationStep: number | null;
   noise: number;
+  /** Glitch bursts simulated, in the order given. */
+  glitchBursts: GlitchBurstTruth[];
 }
 
 export interface CaptureTruth {

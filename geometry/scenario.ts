@@ -3,6 +3,7 @@
  * the simulator's capture spec. The site and date give the Earth's field through the World
  * Magnetic Model, so a simulated compass reads what a real one would there.
  */
+import { captureDateAtNoonUtc } from "./capture-date";
 import { magneticReference } from "./magnetic-reference";
 import type { BodyFace, CaptureSpec, RotationPath, SimulatedMagnetometerSpec, SoftIronLevel } from "./magnetometer-types";
 import { mountingRotationById } from "./mounting-rotations";
@@ -25,7 +26,7 @@ export interface ScenarioSpec {
   secondCompass: { mountingRotation: string; declaredRotation: string; hardIronOffset: Vec3 } | null;
   /** A motor run at the end: field per ampere on each body axis, µT/A, up to maxAmps. */
   currentCoupling: { perAmpMicrotesla: Vec3; maxAmps: number } | null;
-  /** Readings clamp at ± this many µT. */
+  /** The first compass's range: readings clamp at ± this many µT. */
   clipLevelMicrotesla: number | null;
   /** Six-face accelerometer holds before the rotation, with hand wobble and tilt, degrees. */
   holds: { faces: BodyFace[]; wobbleDeg: number; tiltDeg: number } | null;
@@ -56,9 +57,18 @@ function rotation(id: string, what: string): Mat3 {
   return found.matrix;
 }
 
+/**
+ * The compass ranges a scenario's capture is analysed with: the clip level is the first
+ * compass's full-scale range, so its offset is judged against it; without one the analysis
+ * assumes the common default.
+ */
+export function scenarioMagnetometerRanges(spec: Pick<ScenarioSpec, "clipLevelMicrotesla">): Record<string, number> {
+  return spec.clipLevelMicrotesla ? { compass_a: spec.clipLevelMicrotesla } : {};
+}
+
 /** The simulator's spec for a scenario (throws RangeError naming a bad rotation). */
 export function scenarioCaptureSpec(spec: ScenarioSpec): CaptureSpec {
-  const field = magneticReference(spec.site, new Date(`${spec.date}T12:00:00Z`)).fieldNedMicrotesla;
+  const field = magneticReference(spec.site, captureDateAtNoonUtc(spec.date)).fieldNedMicrotesla;
   const first: SimulatedMagnetometerSpec = {
     hardIronOffset: spec.hardIronOffset,
     softIron: spec.softIron,

@@ -15,9 +15,12 @@
  *   in the half of the body-frame sphere towards the vehicle's top (−z) and the lower half
  *   stays empty;
  * - partial: yaw, pitch and roll each swept over a random, limited range;
+ * - steady-spin: level, turned about the vertical at one steady rate (8 °/s unless another
+ *   is asked for) from the first moment to the last: gravity stays put in the body frame, so
+ *   only the compass and the gyroscope show the turn;
  * - none: held still, level.
  */
-import type { BodyFace, RotationPath, SimulatedHoldsSpec } from "./magnetometer-types";
+import type { BodyFace, RotationPath, SimulatedHoldsSpec, SimulatorOnlyPath } from "./magnetometer-types";
 import type { RandomSource } from "./random";
 import { fromAxisAngle, fromYawPitchRoll, interpolateRotation, minimalRotation, rotationExp } from "./rotation";
 import type { Mat3, Vec3 } from "./types";
@@ -104,8 +107,23 @@ export function holdSegment(face: BodyFace, spec: SimulatedHoldsSpec, random: Ra
   };
 }
 
-/** A rotation path of `seconds` seconds; `field` is the site field direction (NED). */
-export function pathSegment(path: RotationPath, seconds: number, field: Vec3, random: RandomSource): MotionSegment {
+/**
+ * Rate of the steady-spin path, °/s: an invented, unhurried hand turning a vehicle on the
+ * ground (two turns in 90 s).
+ */
+export const STEADY_SPIN_RATE_DEG_PER_S = 8;
+
+/**
+ * A rotation path of `seconds` seconds; `field` is the site field direction (NED).
+ * `spinRateDegPerS` is the rate of the steady-spin path (positive turns clockwise seen from above).
+ */
+export function pathSegment(
+  path: RotationPath | SimulatorOnlyPath,
+  seconds: number,
+  field: Vec3,
+  random: RandomSource,
+  spinRateDegPerS: number = STEADY_SPIN_RATE_DEG_PER_S,
+): MotionSegment {
   const heading = random.between(0, 360);
   const base = { kind: "path" as const, seconds, acceleration: still };
   switch (path) {
@@ -133,6 +151,8 @@ export function pathSegment(path: RotationPath, seconds: number, field: Vec3, ra
         },
       };
     }
+    case "steady-spin":
+      return { ...base, attitude: (t) => fromYawPitchRoll(heading + spinRateDegPerS * t, 0, 0) };
     case "none":
       return { ...base, attitude: () => fromYawPitchRoll(heading, 0, 0) };
   }

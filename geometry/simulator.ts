@@ -14,6 +14,8 @@
  *   + noise. The Earth's rotation (7.3e−5 rad/s) is left out.
  * - steel: an induced dipole along the site field, B = k·(3(b̂·r̂)r̂ − b̂)/r³ (k in µT·m³, r the
  *   vector from the steel to the vehicle), which changes as the vehicle wanders ±0.3 m.
+ * - glitch bursts: for a stretch of samples a strong field is added (a magnet carried past)
+ *   or the reading is replaced by one fixed value (a loose connector).
  * The default site field is invented (about 48 µT, dip 67°); pass the World Magnetic Model
  * value for a real site.
  */
@@ -22,18 +24,24 @@ import type {
   CaptureSpec,
   CaptureTruth,
   CaptureTruthMagnetometer,
+  GlitchBurstTruth,
   SimulatedCapture,
   SimulatedMagnetometerSpec,
   SoftIronLevel,
 } from "./magnetometer-types";
 import { STANDARD_GRAVITY_MPS2 } from "./gravity";
 import { createRandom, type RandomSource } from "./random";
-import { rotationLog } from "./rotation";
+import { rotationLog, rotationZ } from "./rotation";
 import { holdSegment, joinSegments, motorRunSegment, pathSegment, type MotionSegment } from "./simulator-paths";
 import type { ColumnTable, Mat3, Vec3 } from "./types";
 import { det3, identity3, inverse3, mulMat, mulMatVec, norm, normalize, scaleMat, transpose3 } from "./vector";
 
 export const DEFAULT_SITE_FIELD_NED: Vec3 = [18.9, 0.6, 44.2];
+
+/** Direction of a glitch burst when none is given (invented, unit length). */
+export const DEFAULT_GLITCH_DIRECTION: Vec3 = [0.48, -0.6, 0.64];
+/** Size of a glitch burst when none is given, times the site field strength (invented). */
+export const DEFAULT_GLITCH_FIELD_MULTIPLE = 5;
 
 export const SOFT_IRON_LEVELS: Record<SoftIronLevel, Mat3> = {
   none: identity3(),
@@ -58,7 +66,33 @@ interface MagnetometerModel {
   spec: SimulatedMagnetometerSpec;
 }
 
-function magnetometerModel(spec: SimulatedMagnetometerSpec, fieldStrength: number, mag0Frame: Mat3 | null): MagnetometerModel {
+/** The bursts of a spec with defaults filled in and the samples they cover at `rate`. */
+function glitchBurstsOf(spec: SimulatedMagnetometerSpec, rate: number): GlitchBurstTruth[] {
+  // A small tolerance so that a start on a sample time includes that sample despite round-off.
+  const firstSampleFrom = (t: number) => Math.max(0, Math.ceil(t * rate - 1e-6));
+  return (spec.glitchBursts ?? []).map((b) => ({
+    kind: b.kind,
+    startS: b.startS,
+    durationS: b.durationS,
+    fieldMultiple: b.fieldMultiple ?? DEFAULT_GLITCH_FIELD_MULTIPLE,
+    direction: normalize(b.direction ?? DEFAULT_GLITCH_DIRECTION),
+    startIndex: firstSampleFrom(b.startS),
+    endIndex: firstSampleFrom(b.startS + b.durationS),
+  }));
+}
+
+/** The burst covering sample i, if any. */
+function burstAt(bursts: GlitchBurstTruth[], i: number): GlitchBurstTruth | null {
+  for (const b of bursts) if (i >= b.startIndex && i < b.endIndex) return b;
+  return null;
+}
+
+function magnetometerModel(
+  spec: SimulatedMagnetometerSpec,
+  fieldStrength: number,
+  mag0Frame: Mat3 | null,
+  rate: number,
+): MagnetometerModel {
   // mag0Frame: compass_a's body-to-logged rotation (null for compass_a itself).
   const softIron =
     typeof spec.softIron === "string" || spec.softIron === undefined ? SOFT_IRON_LEVELS[spec.softIron ?? "none"] : spec.softIron;
@@ -91,6 +125,7 @@ function magnetometerModel(spec: SimulatedMagnetometerSpec, fieldStrength: numbe
       clipLevel: spec.clipLevel ?? null,
       quantisationStep: spec.quantisationStep ?? null,
       noise: spec.noise ?? 0.2,
+      glitchBursts: glitchBurstsOf(spec, rate),
     },
   };
 }
@@ -139,8 +174,8 @@ export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
   const fieldDirection = normalize(site);
   const gravity = spec.gravity ?? STANDARD_GRAVITY_MPS2;
   const magSpecs = spec.magnetometers ?? [{}];
-  const first = magnetometerModel(magSpecs[0] ?? {}, fieldStrength, null);
-  const mags = magSpecs.map((m, i) => (i === 0 ? first : magnetometerModel(m, fieldStrength, first.bodyToLogged)));
+  const first = magnetometerModel(magSpecs[0] ?? {}, fieldStrength, null, rate);
+  const mags = magSpecs.map((m, i) => (i === 0 ? first : magnetometerModel(m, fieldStrength, first.bodyToLogged, rate)));
   const accelSpec =
     spec.accelerometer === false
       ? null
@@ -214,9 +249,18 @@ export function simulateCapture(spec: CaptureSpec = {}): SimulatedCapture {
     mags.forEach((m, j) => {
       const k = m.truth.currentCoupling;
       const b: Vec3 = [bodyField[0] + k[0] * amps, bodyField[1] + k[1] * amps, bodyField[2] + k[2] * amps];
+      const burst = burstAt(m.truth.glitchBursts, i);
+      if (burst?.kind === "magnet") {
+        // Carried past: the added field's direction sweeps from −45° to +45° about the vertical.
+        const sweep = -45 + (90 * (t - burst.startS)) / burst.durationS;
+        const added = mulMatVec(toBody, mulMatVec(rotationZ(sweep), burst.direction));
+        for (let a = 0; a < 3; a++) b[a] += burst.fieldMultiple * fieldStrength * added[a];
+      }
       const raw = mulMatVec(m.bodyToRaw, b);
       for (let a = 0; a < 3; a++) {
         let v = raw[a] + m.truth.hardIronOffset[a] + random.gaussian(0, m.truth.noise);
+        // Stuck: the noise is still drawn so the rest of the capture matches the same spec without the burst.
+        if (burst?.kind === "stuck") v = burst.fieldMultiple * fieldStrength * burst.direction[a];
         if (m.truth.clipLevel !== null) v = Math.max(-m.truth.clipLevel, Math.min(m.truth.clipLevel, v));
         if (m.truth.quantisationStep !== null) v = Math.round(v / m.truth.quantisationStep) * m.truth.quantisationStep;
         raw[a] = v;

@@ -4,16 +4,28 @@
  *
  * A sample is still when, over a window centred on it, the standard deviation of the
  * acceleration vector (the root of the summed per-axis variances) stays below a threshold,
- * and the RMS angular rate (after removing the gyro's bias, estimated as the median rate over
- * the accelerometer-still samples) stays below another. The rate test uses the RMS, not the
- * spread, because a steady turn about the vertical leaves gravity and the rate's spread
- * unchanged. Runs of still samples shorter than a minimum duration
+ * and the RMS angular rate (after removing the gyro's bias) stays below another. The rate
+ * test uses the RMS, not the spread, because a steady turn about the vertical leaves gravity
+ * and the rate's spread unchanged. Runs of still samples shorter than a minimum duration
  * are dropped, and a run is split where the time stamps jump (a logging gap). Each run is
  * trimmed by half a window at each end that borders motion: those samples passed only
  * because their window still straddled the end of a move. A slow, steady turn can pass the
  * variance tests, so a run is also split where its direction (over blocks of half a window)
  * has drifted more than 5° from where the run began, or where the gyro's rate, integrated
- * since then, adds up to a 5° turn.
+ * since then, adds up to a 5° turn — or, with no gyro, where the compass's heading (the part
+ * of its reading square to gravity) has turned more than 5° since then.
+ *
+ * A steady turn about the vertical is the hard case: gravity does not move, and a gyro that
+ * reads the turn all along looks just like a gyro with a bias. So the bias removed before the
+ * rate tests is the median rate over the accelerometer-still samples whose rate about the
+ * vertical is small enough to be a MEMS bias (a rate about a horizontal axis would tip
+ * gravity, so the accelerometer vouches for those axes). If none is, the compass decides:
+ * when its heading turns during those samples, they are a turn and no bias is removed;
+ * otherwise (or with no compass) the median over all of them is used, and without a compass
+ * gyro-bias.ts declines to call the result a bias. With the bias known, the gyro judges turns
+ * and the compass is not used again: its reading also moves with motor current, which does
+ * not make a still vehicle move. A turn slower than a plausible bias that fills most of the
+ * still samples can still pass for bias.
  *
  * Default thresholds (common practice for hand-held calibration with MEMS sensors):
  * - window 0.5 s: long enough to average sensor noise, short enough to resolve the moves
@@ -27,7 +39,10 @@
  * Everything computed from these periods uses means (bias, pose direction, dip) or
  * high-passed spreads (gyro noise), which a small wobble does not disturb.
  *
- * Cost: one pass over the samples with running sums; memory: one byte per sample.
+ * The compass test sees a heading change through a constant hard-iron offset only in part:
+ * an offset as large as the field's horizontal part halves or more the turn it sees.
+ *
+ * Cost: two or three passes over the samples with running sums; memory: two bytes per sample.
  */
 import type { Vec3Series } from "./types";
 
@@ -54,6 +69,12 @@ export interface StillPeriodOptions {
   maxDriftDeg?: number;
   /** Angular rate samples aligned with the acceleration, rad/s. */
   gyro?: Vec3Series;
+  /**
+   * Compass samples aligned with the acceleration, in any units (a constant offset is
+   * tolerated): where its heading turns, the gyro's reading is a turn, not bias; with no gyro,
+   * a still period must not turn in heading.
+   */
+  compass?: Vec3Series;
 }
 
 export const STILL_PERIOD_DEFAULTS = {
@@ -63,6 +84,21 @@ export const STILL_PERIOD_DEFAULTS = {
   minDurationS: 2,
   maxDriftDeg: 5,
 } as const;
+
+/**
+ * Largest rate about the vertical, rad/s, that a still period's gyroscope reading may show
+ * and still be taken for bias when no compass can tell a turn from a bias: 5 °/s (common
+ * practice: MEMS zero-rate offsets are a few degrees per second at most once powered up, the
+ * "gyro.bias" row of thresholds.ts). A vehicle turned steadily by hand is usually faster.
+ */
+export const MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S = (5 * Math.PI) / 180;
+
+/**
+ * Smallest share of the compass reading square to gravity for the heading test: below it
+ * (a field within about 6° of the vertical, or a large vertical offset) the heading is too
+ * poorly defined to judge (engineering choice).
+ */
+const MIN_HORIZONTAL_SHARE = 0.1;
 
 /**
  * Median step between time stamps, seconds, from at most 10,001 evenly spread steps (enough
@@ -157,6 +193,29 @@ function markLowRate(series: Vec3Series, bias: [number, number, number], halfWin
   }
 }
 
+/** The marked samples whose rate about the accelerometer's vertical is at most `limit`; null when none is. */
+function plausibleBiasSamples(gyro: Vec3Series, accel: Vec3Series, mask: Uint8Array, limit: number): Uint8Array | null {
+  const kept = new Uint8Array(mask.length);
+  let count = 0;
+  for (let i = 0; i < mask.length; i++) {
+    if (mask[i] !== 1) continue;
+    const length = Math.hypot(accel.x[i], accel.y[i], accel.z[i]);
+    const vertical = (gyro.x[i] * accel.x[i] + gyro.y[i] * accel.y[i] + gyro.z[i] * accel.z[i]) / length;
+    if (Math.abs(vertical) <= limit) {
+      kept[i] = 1;
+      count++;
+    }
+  }
+  return count > 0 ? kept : null;
+}
+
+/** True when the compass heading turns by more than the drift limit within some run of marked samples. */
+function headingTurns(timeS: Float64Array, accel: Vec3Series, mask: Uint8Array, limits: RunLimits, compass: Vec3Series): boolean {
+  const turning = new Uint8Array(mask.length);
+  splitRuns(timeS, accel, mask, limits, compass, undefined, turning);
+  return turning.includes(1);
+}
+
 /** Median of each axis over the marked samples (at most ~10,000 of them, evenly spread). */
 function maskedMedian(series: Vec3Series, mask: Uint8Array): [number, number, number] {
   let marked = 0;
@@ -184,23 +243,63 @@ function maskedMedian(series: Vec3Series, mask: Uint8Array): [number, number, nu
 export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options: StillPeriodOptions = {}): StillPeriod[] {
   const n = timeS.length;
   if (n < 3) return [];
-  const windowS = options.windowS ?? STILL_PERIOD_DEFAULTS.windowS;
-  const minDurationS = options.minDurationS ?? STILL_PERIOD_DEFAULTS.minDurationS;
-  const maxDriftDeg = options.maxDriftDeg ?? STILL_PERIOD_DEFAULTS.maxDriftDeg;
   const step = medianTimeStep(timeS);
   if (!(step > 0)) return [];
+  const windowS = options.windowS ?? STILL_PERIOD_DEFAULTS.windowS;
   const halfWindow = Math.max(1, Math.round(windowS / step / 2));
-  // A jump in the time stamps of more than ten steps (and at least a quarter second) is a gap.
-  const gapS = Math.max(10 * step, 0.25);
+  const run: RunLimits = {
+    halfWindow,
+    step,
+    // A jump in the time stamps of more than ten steps (and at least a quarter second) is a gap.
+    gapS: Math.max(10 * step, 0.25),
+    minDurationS: options.minDurationS ?? STILL_PERIOD_DEFAULTS.minDurationS,
+    maxDriftDeg: options.maxDriftDeg ?? STILL_PERIOD_DEFAULTS.maxDriftDeg,
+  };
 
   const mask = new Uint8Array(n).fill(1);
   markLowVariance(accel, halfWindow, options.accelStdThresholdMps2 ?? STILL_PERIOD_DEFAULTS.accelStdThresholdMps2, mask);
-  const gyro = options.gyro;
-  const bias: [number, number, number] = gyro ? maskedMedian(gyro, mask) : [0, 0, 0];
-  if (gyro) {
-    markLowRate(gyro, bias, halfWindow, options.gyroRateThresholdRadPerS ?? STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS, mask);
-  }
+  const { gyro, compass } = options;
+  if (!gyro) return splitRuns(timeS, accel, mask, run, compass);
 
+  // The bias, from samples that every other test calls still (see the header).
+  let bias: [number, number, number];
+  const plausible = plausibleBiasSamples(gyro, accel, mask, MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S);
+  if (plausible) bias = maskedMedian(gyro, plausible);
+  else if (compass && headingTurns(timeS, accel, mask, run, compass)) bias = [0, 0, 0];
+  else bias = maskedMedian(gyro, mask);
+  markLowRate(gyro, bias, halfWindow, options.gyroRateThresholdRadPerS ?? STILL_PERIOD_DEFAULTS.gyroRateThresholdRadPerS, mask);
+  // With the bias known, the gyro's integrated rate judges turns; the compass is left out here
+  // because its reading also moves with motor current, which does not make a still vehicle move.
+  return splitRuns(timeS, accel, mask, run, undefined, { gyro, bias });
+}
+
+interface RunLimits {
+  halfWindow: number;
+  step: number;
+  gapS: number;
+  minDurationS: number;
+  maxDriftDeg: number;
+}
+
+/**
+ * The runs of marked samples, trimmed where they border motion, split at gaps and wherever
+ * the reading's direction, the compass heading or the integrated rate has moved too far
+ * from where the run began, and kept when long enough. `turning`, when given, is set to 1 on
+ * every sample of a run from where its compass heading first turned too far (from the start
+ * of that piece when it is too short to be a hold): a turn about the vertical, whose gyro
+ * reading is not bias.
+ */
+function splitRuns(
+  timeS: Float64Array,
+  accel: Vec3Series,
+  mask: Uint8Array,
+  limits: RunLimits,
+  compass?: Vec3Series,
+  rate?: { gyro: Vec3Series; bias: [number, number, number] },
+  turning?: Uint8Array,
+): StillPeriod[] {
+  const n = timeS.length;
+  const { halfWindow, step, gapS, minDurationS, maxDriftDeg } = limits;
   const periods: StillPeriod[] = [];
   let start = -1;
   const close = (endIndex: number) => {
@@ -216,63 +315,100 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
     start = -1;
   };
   // Drift tests at the end of each block of half a window: a run whose direction wanders
-  // from where it began (block means of the acceleration), or whose integrated rate adds up
-  // to a turn (which also catches a slow turn about the vertical, invisible to gravity), is a
-  // slow move, split where it has gone too far. A wobble's rate integrates back to zero.
+  // from where it began (block means of the acceleration), whose compass heading turns, or
+  // whose integrated rate adds up to a turn (the last two catch a slow turn about the
+  // vertical, invisible to gravity), is a slow move, split where it has gone too far. A
+  // wobble's rate integrates back to zero.
   const blockSize = halfWindow;
   const cosLimit = Math.cos((maxDriftDeg * Math.PI) / 180);
   const turnLimit = (maxDriftDeg * Math.PI) / 180;
-  let anchorX = 0,
-    anchorY = 0,
-    anchorZ = 0,
-    hasAnchor = false;
-  let blockStart = 0,
-    bx = 0,
-    by = 0,
-    bz = 0;
-  let turnX = 0,
-    turnY = 0,
-    turnZ = 0;
+  const gyro = rate?.gyro;
+  const bias = rate?.bias ?? [0, 0, 0];
+  const anchor = [0, 0, 0];
+  let hasAnchor = false;
+  // Heading anchor: the compass block mean's part square to gravity, as a unit vector (or none).
+  let heading: number[] | null = null;
+  let blockStart = 0;
+  const block = [0, 0, 0];
+  const field = [0, 0, 0];
+  const turn = [0, 0, 0];
+  let turningFrom = -1;
   for (let i = 0; i < n; i++) {
     if (mask[i] === 1) {
-      if (start >= 0 && timeS[i] - timeS[i - 1] > gapS) close(i);
+      if (start >= 0 && timeS[i] - timeS[i - 1] > gapS) {
+        if (turning && turningFrom >= 0) turning.fill(1, turningFrom, i);
+        turningFrom = -1;
+        close(i);
+      }
       if (start < 0) {
         start = i;
         hasAnchor = false;
         blockStart = i;
-        bx = by = bz = 0;
-        turnX = turnY = turnZ = 0;
+        block.fill(0);
+        field.fill(0);
+        turn.fill(0);
       }
-      bx += accel.x[i];
-      by += accel.y[i];
-      bz += accel.z[i];
+      block[0] += accel.x[i];
+      block[1] += accel.y[i];
+      block[2] += accel.z[i];
+      if (compass) {
+        field[0] += compass.x[i];
+        field[1] += compass.y[i];
+        field[2] += compass.z[i];
+      }
       if (gyro) {
-        turnX += (gyro.x[i] - bias[0]) * step;
-        turnY += (gyro.y[i] - bias[1]) * step;
-        turnZ += (gyro.z[i] - bias[2]) * step;
+        turn[0] += (gyro.x[i] - bias[0]) * step;
+        turn[1] += (gyro.y[i] - bias[1]) * step;
+        turn[2] += (gyro.z[i] - bias[2]) * step;
       }
       if (i - blockStart + 1 === blockSize) {
-        const length = Math.hypot(bx, by, bz);
-        const drifted = hasAnchor && (anchorX * bx + anchorY * by + anchorZ * bz) / length < cosLimit;
-        const turned = Math.hypot(turnX, turnY, turnZ) > turnLimit;
-        if (!hasAnchor || drifted || turned) {
-          if (drifted || turned) {
+        const length = Math.hypot(block[0], block[1], block[2]);
+        const up = [block[0] / length, block[1] / length, block[2] / length];
+        const drifted = hasAnchor && anchor[0] * up[0] + anchor[1] * up[1] + anchor[2] * up[2] < cosLimit;
+        const blockHeading = compass ? horizontalDirection(field, up) : null;
+        const headingTurned =
+          hasAnchor &&
+          heading !== null &&
+          blockHeading !== null &&
+          heading[0] * blockHeading[0] + heading[1] * blockHeading[1] + heading[2] * blockHeading[2] < cosLimit;
+        const turned = Math.hypot(turn[0], turn[1], turn[2]) > turnLimit;
+        if (!hasAnchor || drifted || headingTurned || turned) {
+          // The turn began somewhere since the last split: if that piece is too short to be a
+          // hold of its own, it is taken for the start of the turn.
+          if (headingTurned && turning && turningFrom < 0) turningFrom = timeS[blockStart] - timeS[start] < minDurationS ? start : blockStart;
+          if (drifted || headingTurned || turned) {
             close(blockStart);
             start = blockStart;
-            turnX = turnY = turnZ = 0;
+            turn.fill(0);
           }
-          anchorX = bx / length;
-          anchorY = by / length;
-          anchorZ = bz / length;
+          anchor[0] = up[0];
+          anchor[1] = up[1];
+          anchor[2] = up[2];
+          heading = blockHeading;
           hasAnchor = true;
         }
         blockStart = i + 1;
-        bx = by = bz = 0;
+        block.fill(0);
+        field.fill(0);
       }
-    } else if (start >= 0) close(i);
+    } else if (start >= 0) {
+      if (turning && turningFrom >= 0) turning.fill(1, turningFrom, i);
+      turningFrom = -1;
+      close(i);
+    }
   }
+  if (turning && turningFrom >= 0) turning.fill(1, turningFrom, n);
   if (start >= 0) close(n);
   return periods;
+}
+
+/** Unit vector of the part of `field` square to the unit vector `up`; null when that part is too small to point anywhere. */
+function horizontalDirection(field: number[], up: number[]): number[] | null {
+  const along = field[0] * up[0] + field[1] * up[1] + field[2] * up[2];
+  const h = [field[0] - along * up[0], field[1] - along * up[1], field[2] - along * up[2]];
+  const length = Math.hypot(h[0], h[1], h[2]);
+  if (!(length > MIN_HORIZONTAL_SHARE * Math.hypot(field[0], field[1], field[2]))) return null;
+  return [h[0] / length, h[1] / length, h[2] / length];
 }
 
 /** One byte per sample: 1 inside any of the periods. */

@@ -5,6 +5,7 @@
  * remembered figure not checked against a source). A workspace may override any limit; the
  * source then says so.
  */
+import { FIELD_BAND_ALTITUDE_M, FIELD_BAND_YEARS, PLAUSIBLE_FIELD_MARGIN_FRACTION, plausibleFieldLimits } from "./plausible-field";
 import type { CheckStatus } from "./types";
 
 export interface Threshold {
@@ -51,22 +52,27 @@ export const THRESHOLDS = {
     basis: "sensor sensitivity tolerances allow a few per cent; more means a disturbed site, wrong units or a poor fit",
   },
   "mag.field-plausible": {
-    warnBelow: 22,
-    warnAbove: 67,
+    // The warning limits are computed from the model on first use (plausible-field.ts).
+    get warnBelow(): number {
+      return plausibleFieldLimits().warnBelow;
+    },
+    get warnAbove(): number {
+      return plausibleFieldLimits().warnAbove;
+    },
     failBelow: 15,
     failAbove: 100,
     unit: "µT",
-    source:
-      "WMM2025 sea-level extremes (22–67 µT, computed on a 1° grid; the remembered 25–65 µT is exceeded in the South Atlantic anomaly); fail limits common practice",
-    basis: "no place on the Earth's surface has a main field outside 22–67 µT",
+    source: `WMM2025's weakest and strongest main field anywhere from ${-FIELD_BAND_ALTITUDE_M.lowest} m below sea level to ${FIELD_BAND_ALTITUDE_M.highest / 1000} km up over ${FIELD_BAND_YEARS.from.toFixed(1)}–${FIELD_BAND_YEARS.to.toFixed(1)}, computed from the model and widened by ${PLAUSIBLE_FIELD_MARGIN_FRACTION * 100}% (engineering choice); fail limits common practice`,
+    basis:
+      "no place on or near the Earth's surface has a main field outside the model's band, and a sensor within the sensitivity allowance of the field-against-model check stays inside the limits",
   },
   "mag.hard-iron": {
-    warnAbove: 60,
-    failAbove: 150,
-    unit: "% of field",
+    warnBelow: 50,
+    failBelow: 20,
+    unit: "% of range left",
     source: "common practice",
     basis:
-      "an offset larger than the Earth's field itself points to a magnetised part or a current loop close to the compass and eats the sensor's range",
+      "in some attitude the offset and the Earth's field add on one axis; half the range should stay free for fields that change in flight (motor current, a part that shifts, temperature), and with less than a fifth left one disturbance clips the readings",
   },
   "mag.soft-iron": {
     warnAbove: 1.15,
@@ -111,18 +117,21 @@ export const THRESHOLDS = {
     basis: "each axis needs a hold pointing down and one pointing up to separate its offset from its scale",
   },
   "accel.tilt": {
-    warnAbove: 5,
-    failAbove: 15,
-    unit: "° from square",
-    source: "common practice",
-    basis: "the six-face procedure expects each face within a few degrees of a right angle; far off, the holds no longer isolate one axis",
+    warnAbove: 1.4,
+    failAbove: 3,
+    unit: "× square-hold uncertainty",
+    source:
+      "common practice that crooked holds weaken the fit; the limits are an engineering choice, tuned on simulated captures (holds 20° off their faces give about 1.25, 30° off 1.5–1.9, 40° off 2.5–5; the fit refuses near 7)",
+    basis:
+      "a hold well off its face still pins its axis nearly as well as a square one; what spoils the fit is a set of holds that leaves some offset or scale much less certain than square holds would",
   },
   "accel.wobble": {
     warnAbove: 0.5,
     failAbove: 1.5,
     unit: "° RMS",
     source: "common practice",
-    basis: "a hold resting on a table moves about a tenth of a degree; a hand-held wobble of a degree or more shifts the pose's mean",
+    basis:
+      "a hold resting on a table moves about a tenth of a degree; a hand-held wobble of a degree or more shifts the pose's mean (measured above the sensor's own noise)",
   },
   "accel.gravity": {
     warnAbove: 3,

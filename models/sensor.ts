@@ -12,6 +12,8 @@ export class Sensor extends Model<InferAttributes<Sensor>, InferCreationAttribut
   /** Id of one of the 48 mountings, e.g. "x-right.z-down" (geometry/mounting-rotations.ts). */
   declare mountingRotation: string;
   declare units: string;
+  /** A magnetometer's full-scale range, ± µT per axis; null when not stated (the checks assume the common default). */
+  declare fullScaleRangeUt: CreationOptional<number | null>;
   /** CSV column names that usually carry this sensor's x, y, z. */
   declare columnHints: CreationOptional<string[]>;
   declare createdAt: CreationOptional<Date>;
@@ -28,6 +30,7 @@ export class Sensor extends Model<InferAttributes<Sensor>, InferCreationAttribut
         placement: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "internal" },
         mountingRotation: { type: DataTypes.STRING(40), allowNull: false, defaultValue: "x-forward.z-down" },
         units: { type: DataTypes.STRING(16), allowNull: false },
+        fullScaleRangeUt: { type: DataTypes.DOUBLE, allowNull: true, defaultValue: null },
         columnHints: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,6 +1,7 @@
 "use client";
 
 import { MOUNTING_ROTATIONS, mountingWords } from "@/geometry/mounting-rotations";
+import { DEFAULT_MAGNETOMETER_RANGE_UT } from "@/geometry/magnetometer-range";
 import { SafetyCautions } from "@/components/run/safety-cautions";
 import { ALL_FACES, FACE_LABELS } from "./scenario-draft";
 import { fieldId, FaultSection, NumberBox, TripleBox } from "./scenario-fields";
@@ -137,14 +138,14 @@ export function FaultSections({
 
       <FaultSection
         id="fault-clip"
-        title="Saturation"
+        title="Compass range and saturation"
         on={draft.clip.on}
         onToggle={(on) => update((d) => void (d.clip.on = on))}
-        summary="The sensor's range is too small for the field plus its offset: readings flatten at the clip level."
+        summary={`The compass's range: readings flatten at it, and the offset check judges how much of it the offset and the field leave free. Off, the common ±${DEFAULT_MAGNETOMETER_RANGE_UT} µT is assumed and nothing clips.`}
       >
         <NumberBox
           name="spec.clipLevelMicrotesla"
-          label="Clip level (±, each axis)"
+          label="Range, where readings clip (±, each axis)"
           unit="µT"
           value={draft.clip.levelMicrotesla}
           onChange={(v) => update((d) => void (d.clip.levelMicrotesla = v))}

@@ -4,10 +4,11 @@
  * World Magnetic Model expects at the site and date. Pure, so it runs in a Web Worker and in
  * unit tests alike.
  */
+import { captureDateAtNoonUtc, parseCaptureDate } from "@/geometry/capture-date";
 import type { CaptureUnits } from "@/geometry/capture-units";
 import { liveSnapshot, type LiveSnapshot } from "@/geometry/live-snapshot";
 import { magneticReference } from "@/geometry/magnetic-reference";
-import { scenarioCaptureSpec, type ScenarioSpec } from "@/geometry/scenario";
+import { scenarioCaptureSpec, scenarioMagnetometerRanges, type ScenarioSpec } from "@/geometry/scenario";
 import { simulateCapture } from "@/geometry/simulator";
 import { diagnose, type LikelyCause } from "@/geometry/verdict";
 
@@ -19,8 +20,11 @@ export const SIMULATED_UNITS: CaptureUnits = {
   time: { kind: "time", unit: "s" },
 };
 
-/** Noon UTC of the scenario's date: the instant the simulator's field is taken at. */
-export const scenarioDate = (spec: Pick<ScenarioSpec, "date">) => new Date(`${spec.date}T12:00:00Z`);
+/**
+ * Noon UTC of the scenario's date: the instant the simulator's field is taken at. A date that
+ * is not one yet (a draft being typed) gives an invalid Date.
+ */
+export const scenarioDate = (spec: Pick<ScenarioSpec, "date">) => parseCaptureDate(spec.date) ?? new Date(Number.NaN);
 
 export interface ExpectedField {
   fieldStrengthMicrotesla: number;
@@ -33,7 +37,7 @@ export interface ExpectedField {
 /** The World Magnetic Model's field at the scenario's site and date, or null for coordinates it cannot take. */
 export function expectedField(site: { latitudeDeg: number; longitudeDeg: number; altitudeM: number }, date: string): ExpectedField | null {
   try {
-    const reference = magneticReference(site, new Date(`${date}T12:00:00Z`));
+    const reference = magneticReference(site, captureDateAtNoonUtc(date));
     const { fieldStrengthMicrotesla, inclinationDeg, declinationDeg, modelName, withinValidity } = reference;
     return { fieldStrengthMicrotesla, inclinationDeg, declinationDeg, modelName, withinValidity };
   } catch {
@@ -52,6 +56,12 @@ export interface ScenarioPreview {
 /** Simulate the scenario and analyse all of it, with the options the live session uses. */
 export function computeScenarioPreview(spec: ScenarioSpec, maxPoints = 1500): ScenarioPreview {
   const table = simulateCapture(scenarioCaptureSpec(spec)).table;
-  const snapshot = liveSnapshot(table, table.length, { units: SIMULATED_UNITS, site: spec.site, date: scenarioDate(spec), maxPoints });
+  const snapshot = liveSnapshot(table, table.length, {
+    units: SIMULATED_UNITS,
+    site: spec.site,
+    date: scenarioDate(spec),
+    magnetometerRangesUt: scenarioMagnetometerRanges(spec),
+    maxPoints,
+  });
   return { snapshot, diagnosis: diagnose(snapshot.checks), powersMotors: spec.currentCoupling !== null };
 }

@@ -7,6 +7,7 @@ import { IDENTITY_MOUNTING_ID, MOUNTING_ROTATIONS, eulerAnglesLine, mountingRota
 import { apiFetch } from "@/lib/api-client";
 import type { SensorSummary } from "@/lib/data/sensors";
 import { MountingPicture } from "./mounting-picture";
+import { COMMON_MAGNETOMETER_RANGES_UT, DEFAULT_MAGNETOMETER_RANGE_UT } from "@/geometry/magnetometer-range";
 import { ACCEL_UNITS, FIELD_UNITS, RATE_UNITS, SENSOR_KINDS, SENSOR_KIND_LABELS, type SensorKind } from "@/lib/fleet-terms";
 
 const UNIT_LABELS: Record<string, string> = {
@@ -68,6 +69,8 @@ export function SensorForm({
       mountingRotation: values.mountingRotation,
       units: values.units,
       columnHints: values.columnHints ?? "",
+      // Only a compass has a range here; empty means not stated.
+      fullScaleRangeUt: values.kind === "magnetometer" ? (values.fullScaleRangeUt ?? "") : null,
     };
     const url = editing ? `/api/workspaces/${slug}/sensors/${sensor.id}` : `/api/workspaces/${slug}/vehicles/${vehicleId}/sensors`;
     return (await apiFetch<{ sensor: SensorSummary }>(url, { method: editing ? "PATCH" : "POST", json: body })).sensor;
@@ -117,6 +120,26 @@ export function SensorForm({
           options={unitChoices.map((u) => ({ value: u, label: UNIT_LABELS[u] ?? u }))}
           error={fieldError("units")}
         />
+        {kind === "magnetometer" ? (
+          <>
+            <TextField
+              id={`${prefix}-range`}
+              name="fullScaleRangeUt"
+              label="Full-scale range (± µT, each axis)"
+              inputMode="decimal"
+              list={`${prefix}-range-choices`}
+              defaultValue={sensor?.fullScaleRangeUt ?? ""}
+              placeholder={`${DEFAULT_MAGNETOMETER_RANGE_UT} if left empty`}
+              hint={`From the compass's data sheet or its settings. Left empty, the checks assume ±${DEFAULT_MAGNETOMETER_RANGE_UT} µT, the common default, and say so. The offset is judged by how much of this range it leaves free.`}
+              error={fieldError("fullScaleRangeUt")}
+            />
+            <datalist id={`${prefix}-range-choices`}>
+              {COMMON_MAGNETOMETER_RANGES_UT.map((range) => (
+                <option key={range} value={range} />
+              ))}
+            </datalist>
+          </>
+        ) : null}
       </div>
       <div className="flex flex-col gap-3 sm:flex-row sm:items-start">
         <div className="min-w-0 flex-1 space-y-1">

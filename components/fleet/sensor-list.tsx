@@ -8,6 +8,13 @@ import { mountingRotationById } from "@/geometry/mounting-rotations";
 import type { SensorSummary } from "@/lib/data/sensors";
 import { SENSOR_KIND_LABELS } from "@/lib/fleet-terms";
 import { TableHead } from "@/components/ui/table-head";
+import { DEFAULT_MAGNETOMETER_RANGE_UT } from "@/geometry/magnetometer-range";
+
+/** A compass's range as a person reads it, the default marked as such; other sensors have none here. */
+function rangeWords(sensor: SensorSummary): string {
+  if (sensor.kind !== "magnetometer") return "—";
+  return sensor.fullScaleRangeUt !== null ? `±${sensor.fullScaleRangeUt} µT` : `±${DEFAULT_MAGNETOMETER_RANGE_UT} µT, the common default`;
+}
 
 /** A vehicle's sensors with their declared mounting; add and edit for those who may. */
 export function SensorList({
@@ -62,7 +69,7 @@ export function SensorList({
         <div className="mt-4 overflow-x-auto">
           <table className="w-full text-left text-sm" aria-label="Sensors">
             <TableHead
-              columns={["Label", "Sensor", "Placement", "Mounting (module axis → vehicle)", "Units", "Usual columns"]}
+              columns={["Label", "Sensor", "Placement", "Mounting (module axis → vehicle)", "Units", "Range", "Usual columns"]}
               actions={canEdit}
             />
             <tbody className="divide-y divide-chart-rule">
@@ -75,6 +82,12 @@ export function SensorList({
                     {mountingRotationById(s.mountingRotation)?.shortWords ?? `“${s.mountingRotation}” (not one of the 48)`}
                   </td>
                   <td className="px-4 py-2.5 font-mono text-xs">{s.units}</td>
+                  <td
+                    className={`px-4 py-2.5 text-xs ${s.kind === "magnetometer" && s.fullScaleRangeUt === null ? "text-chart-muted" : ""}`}
+                    data-testid="sensor-range"
+                  >
+                    {rangeWords(s)}
+                  </td>
                   <td className="px-4 py-2.5 font-mono text-xs text-chart-muted">
                     {s.columnHints.length ? s.columnHints.join(", ") : "—"}
                   </td>

@@ -1,4 +1,5 @@
 import { slotWords } from "@/geometry/sensor-slots";
+import { rejectedStretchSentence } from "@/geometry/burst-words";
 import { MountingPicture } from "@/components/fleet/mounting-picture";
 import type { MagnetometerAnalysis } from "@/geometry/magnetometer-analysis";
 import { eulerAnglesLine, mountingRotationById } from "@/geometry/mounting-rotations";
@@ -218,6 +219,13 @@ export function MagnetometerParameters({
             <Figure term="Samples">
               {formatNumber(calibration.samplesUsed, 0)} used, {formatNumber(calibration.outliersRejected, 0)} rejected as outliers
               {calibration.nonFiniteSkipped ? `, ${formatNumber(calibration.nonFiniteSkipped, 0)} unreadable` : ""}
+              {calibration.rejectedStretches?.length ? (
+                <ul className="list-disc pl-4" data-testid="rejected-stretches">
+                  {calibration.rejectedStretches.map((stretch) => (
+                    <li key={stretch.startIndex}>{rejectedStretchSentence(stretch)}</li>
+                  ))}
+                </ul>
+              ) : null}
             </Figure>
             <Figure term="Coverage">
               {formatQuantity(calibration.coverage.coveredFraction * 100, "% of cells")}, largest gap{" "}

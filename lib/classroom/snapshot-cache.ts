@@ -1,7 +1,8 @@
 import "server-only";
+import { captureDateAtNoonUtc } from "@/geometry/capture-date";
 import type { CaptureUnits } from "@/geometry/capture-units";
 import { liveSnapshot } from "@/geometry/live-snapshot";
-import { scenarioCaptureSpec, type ScenarioSpec } from "@/geometry/scenario";
+import { scenarioCaptureSpec, scenarioMagnetometerRanges, type ScenarioSpec } from "@/geometry/scenario";
 import { simulateCapture } from "@/geometry/simulator";
 import type { ColumnTable } from "@/geometry/types";
 import { toJsonSafe } from "@/lib/jobs/results-json";
@@ -103,7 +104,8 @@ export function liveSnapshotJson(spec: ScenarioSpec, position: number, specKey =
     const snapshot = liveSnapshot(table, position, {
       units: SCENARIO_UNITS,
       site: { latitudeDeg: spec.site.latitudeDeg, longitudeDeg: spec.site.longitudeDeg, altitudeM: spec.site.altitudeM },
-      date: new Date(`${spec.date}T12:00:00Z`),
+      date: captureDateAtNoonUtc(spec.date),
+      magnetometerRangesUt: scenarioMagnetometerRanges(spec),
     });
     json = JSON.stringify(toJsonSafe(snapshot));
     c.snapshots.set(key, json);

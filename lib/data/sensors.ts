@@ -15,6 +15,8 @@ export interface SensorSummary {
   mountingRotation: string;
   units: string;
   columnHints: string[];
+  /** A magnetometer's full-scale range, ± µT per axis; null when not stated. */
+  fullScaleRangeUt: number | null;
 }
 
 export interface SensorInput {
@@ -24,6 +26,8 @@ export interface SensorInput {
   mountingRotation: string;
   units: string;
   columnHints: string[];
+  /** Magnetometers only; absent or null when not stated. */
+  fullScaleRangeUt?: number | null;
 }
 
 function toSummary(s: Sensor): SensorSummary {
@@ -36,6 +40,7 @@ function toSummary(s: Sensor): SensorSummary {
     mountingRotation: s.mountingRotation,
     units: s.units,
     columnHints: s.columnHints,
+    fullScaleRangeUt: s.kind === "magnetometer" ? (s.fullScaleRangeUt ?? null) : null,
   };
 }
 
@@ -80,7 +85,7 @@ export async function updateSensor(workspaceId: string, actorId: string, id: str
   if (!sensor) return null;
   const before = sensor.mountingRotation;
   try {
-    await sensor.update(input);
+    await sensor.update({ ...input, fullScaleRangeUt: input.fullScaleRangeUt ?? null });
   } catch (error) {
     duplicateLabel(error);
   }

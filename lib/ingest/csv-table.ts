@@ -9,10 +9,12 @@
  * names are returned beside the table for the analysis to apply.
  */
 import { Readable } from "node:stream";
+import { StringDecoder } from "node:string_decoder";
 import Papa from "papaparse";
 import { recogniseColumns, sensorsInFields, type ColumnRecognition } from "@/geometry/column-names";
 import type { CaptureField, ColumnTable } from "@/geometry/types";
 import type { UnitSpec } from "@/geometry/units";
+import { readNumericLine, suitsFastLane } from "@/lib/ingest/numeric-lines";
 
 /** A file that cannot be read, with where the problem is (1-based line number, column name). */
 export class IngestError extends Error {
@@ -106,6 +108,9 @@ class TableBuilder {
   private previousTime = Number.NEGATIVE_INFINITY;
   private length = 0;
   private readonly notes: string[] = [];
+  /** The fast lane's view of the readers: their column indices, and a row of their values. */
+  private wanted = new Int32Array(0);
+  private values = new Float64Array(0);
 
   constructor(
     private readonly options: IngestOptions,
@@ -115,10 +120,55 @@ class TableBuilder {
   addRows(rows: string[][]): void {
     for (const cells of rows) {
       this.row += 1;
-      if (cells.length === 1 && isSkippableLine(cells[0])) continue;
+      // A comment is a line starting with "#", whatever it holds (detectDelimiter reads it so too).
+      if ((cells.length === 1 && isSkippableLine(cells[0])) || cells[0].trimStart().startsWith("#")) continue;
       if (this.header === null) this.readHeader(cells);
       else this.readData(cells);
     }
+  }
+
+  /**
+   * One line of the file as bytes[start, end), without its line ending (the fast lane; the
+   * file has no quotes). Plain numeric rows are stored straight from the bytes; everything
+   * else (the header, comments, blank lines, a row with a problem) is read as text, the way
+   * addRows reads it, so that the messages are the same.
+   */
+  addLineBytes(bytes: Buffer, start: number, end: number, delimiterCode: number): void {
+    this.row += 1;
+    if (this.header !== null && readNumericLine(bytes, start, end, delimiterCode, this.header.length, this.wanted, this.values)) {
+      this.storeValues(this.values);
+      return;
+    }
+    const line = bytes.toString("utf8", start, end);
+    if (isSkippableLine(line)) return;
+    const cells = line.split(this.delimiter);
+    if (this.header === null) this.readHeader(cells);
+    else this.readData(cells);
+  }
+
+  /** A row whose wanted cells are all numbers, in reader order: the checks of readData that remain, then storage. */
+  private storeValues(values: Float64Array): void {
+    if (this.options.maxRows !== undefined && this.length >= this.options.maxRows) {
+      throw new IngestError(this.row, null, `more than ${this.options.maxRows} data rows; split the capture into smaller files`);
+    }
+    const at = this.length % BLOCK_ROWS;
+    if (at === 0) for (const reader of this.readers) reader.blocks.push(new Float64Array(BLOCK_ROWS));
+    for (let r = 0; r < this.readers.length; r++) {
+      const reader = this.readers[r];
+      const value = values[r];
+      reader.blocks[reader.blocks.length - 1][at] = value;
+      if (r === this.timeReader) {
+        if (value < this.previousTime) {
+          throw new IngestError(
+            this.row,
+            reader.header,
+            `time goes backwards (${value} after ${this.previousTime}); rows must be in time order`,
+          );
+        }
+        this.previousTime = value;
+      }
+    }
+    this.length += 1;
   }
 
   private readHeader(cells: string[]): void {
@@ -161,6 +211,8 @@ class TableBuilder {
     }
     this.readers.sort((a, b) => a.index - b.index);
     this.timeReader = this.readers.findIndex((reader) => reader.field === "time");
+    this.wanted = Int32Array.from(this.readers, (reader) => reader.index);
+    this.values = new Float64Array(this.readers.length);
   }
 
   private readData(cells: string[]): void {
@@ -308,25 +360,79 @@ export function parseCsvTable(text: string, options: IngestOptions = {}): Ingest
   return builder.finish();
 }
 
+const asBuffer = (chunk: string | Uint8Array): Buffer =>
+  typeof chunk === "string" ? Buffer.from(chunk, "utf8") : Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength);
+
+/** Feeds complete lines of byte chunks to the builder, carrying a line split across chunks. */
+class LineSplitter {
+  private carry: Buffer | null = null;
+
+  constructor(
+    private readonly builder: TableBuilder,
+    private readonly delimiterCode: number,
+  ) {}
+
+  private line(bytes: Buffer, start: number, newline: number): void {
+    const end = newline > start && bytes[newline - 1] === 0x0d ? newline - 1 : newline;
+    this.builder.addLineBytes(bytes, start, end, this.delimiterCode);
+  }
+
+  feed(bytes: Buffer): void {
+    let position = 0;
+    if (this.carry) {
+      const newline = bytes.indexOf(0x0a);
+      if (newline < 0) {
+        this.carry = Buffer.concat([this.carry, bytes]);
+        return;
+      }
+      const joined = Buffer.concat([this.carry, bytes.subarray(0, newline + 1)]);
+      this.carry = null;
+      this.line(joined, 0, joined.length - 1);
+      position = newline + 1;
+    }
+    for (;;) {
+      const newline = bytes.indexOf(0x0a, position);
+      if (newline < 0) break;
+      this.line(bytes, position, newline);
+      position = newline + 1;
+    }
+    // Copied, so that a short tail does not keep its whole chunk alive.
+    if (position < bytes.length) this.carry = Buffer.from(bytes.subarray(position));
+  }
+
+  end(): void {
+    if (this.carry) this.line(this.carry, 0, this.carry.length);
+    this.carry = null;
+  }
+}
+
 /**
  * Parses CSV/TSV from a stream (an upload, a file) chunk by chunk: memory holds one chunk of
  * text and the growing numeric columns, never the text of the whole file. Rejects with an
  * IngestError on the first problem and stops reading.
+ *
+ * A file without quotes (as loggers write them) is read line by line from the bytes, numbers
+ * straight from them (numeric-lines.ts); one with quotes goes through the CSV parser.
  */
 export async function parseCsvStream(input: Readable, options: IngestOptions = {}): Promise<IngestedCapture> {
-  input.setEncoding("utf8");
-  const iterator = input[Symbol.asyncIterator]() as AsyncIterator<string>;
-  let head = "";
+  const iterator = input[Symbol.asyncIterator]() as AsyncIterator<string | Uint8Array>;
+  const headChunks: Buffer[] = [];
+  let headSize = 0;
   let ended = false;
-  while (head.length < PEEK_CHARS) {
+  while (headSize < PEEK_CHARS) {
     const next = await iterator.next();
     if (next.done) {
       ended = true;
       break;
     }
-    head += next.value;
+    const chunk = asBuffer(next.value);
+    headChunks.push(chunk);
+    headSize += chunk.length;
   }
-  head = stripBom(head);
+  let headBytes = Buffer.concat(headChunks);
+  if (headBytes[0] === 0xef && headBytes[1] === 0xbb && headBytes[2] === 0xbf) headBytes = headBytes.subarray(3);
+  // A multi-byte character cut at the end of the peek decodes as a replacement: harmless here.
+  const head = headBytes.toString("utf8");
   let delimiter: string;
   try {
     delimiter = delimiterOrThrow(head);
@@ -334,18 +440,41 @@ export async function parseCsvStream(input: Readable, options: IngestOptions = {
     input.destroy();
     throw error;
   }
+  const builder = new TableBuilder(options, delimiter);
 
-  async function* remainder(): AsyncGenerator<string> {
-    yield head;
-    if (ended) return;
-    for (;;) {
-      const next = await iterator.next();
-      if (next.done) return;
-      yield next.value;
+  if (suitsFastLane(head)) {
+    const splitter = new LineSplitter(builder, delimiter.charCodeAt(0));
+    try {
+      splitter.feed(headBytes);
+      if (!ended) {
+        for (;;) {
+          const next = await iterator.next();
+          if (next.done) break;
+          splitter.feed(asBuffer(next.value));
+        }
+      }
+      splitter.end();
+      return builder.finish();
+    } catch (error) {
+      input.destroy();
+      throw error;
     }
   }
+
+  const decoder = new StringDecoder("utf8");
+  async function* remainder(): AsyncGenerator<string> {
+    yield decoder.write(headBytes);
+    if (!ended) {
+      for (;;) {
+        const next = await iterator.next();
+        if (next.done) break;
+        yield decoder.write(asBuffer(next.value));
+      }
+    }
+    const rest = decoder.end();
+    if (rest) yield rest;
+  }
   const source = Readable.from(remainder(), { objectMode: true });
-  const builder = new TableBuilder(options, delimiter);
 
   return new Promise<IngestedCapture>((resolve, reject) => {
     let failure: unknown = null;

@@ -1,6 +1,5 @@
 import crypto from "node:crypto";
 import { Transform } from "node:stream";
-import { analyseCapture } from "@/geometry/analyse-capture";
 import { convertCapture, type CaptureUnits } from "@/geometry/capture-units";
 import { hasMotorFields } from "@/geometry/motor-safety";
 import { buildRunView } from "@/geometry/run-view";
@@ -8,8 +7,8 @@ import { resolveThresholds } from "@/geometry/thresholds";
 import { parseUnitForKind, type QuantityKind } from "@/geometry/units";
 import type { CaptureField } from "@/geometry/types";
 import { db } from "@/lib/db";
-import { UPLOAD_LIMITS } from "@/lib/fleet-terms";
-import { IngestError, parseCsvStream } from "@/lib/ingest/csv-table";
+import { IngestError } from "@/lib/ingest/csv-table";
+import { ingestCapture } from "@/lib/ingest/ingest-capture";
 import { toJsonSafe } from "@/lib/jobs/results-json";
 import { putObject, readObjectStream } from "@/lib/storage";
 import type { RunError } from "@/models/run";
@@ -77,49 +76,54 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
     },
   });
 
-  let ingested;
+  const slots = await models.RunSensor.findAll({ where: { runId: run.id }, include: [{ model: models.Sensor, as: "sensor" }] });
+  const mountingRotations: Record<string, string> = {};
+  const magnetometerRangesUt: Record<string, number> = {};
+  for (const slot of slots) {
+    const sensor = (slot as unknown as { sensor: { kind: string; mountingRotation: string; fullScaleRangeUt: number | null } }).sensor;
+    if (sensor.kind !== "magnetometer") continue;
+    mountingRotations[slot.slot] = sensor.mountingRotation;
+    if (sensor.fullScaleRangeUt !== null) magnetometerRangesUt[slot.slot] = sensor.fullScaleRangeUt;
+  }
+  const site = version.site;
+
+  // The same ingest as `npm run fit`: limits, capture date at noon UTC, units stated > named > guessed.
+  let ingested, analysis, common;
+  let parsed = false;
   try {
     const source = await readObjectStream(run.fileKey);
     source.on("error", (error) => meter.destroy(error));
-    ingested = await parseCsvStream(source.pipe(meter), {
-      map: run.columnMapping as Record<string, CaptureField | "ignore">,
-      minRows: UPLOAD_LIMITS.minSamples,
-      requireTime: false,
-      maxRows: UPLOAD_LIMITS.maxRows,
-      maxColumns: UPLOAD_LIMITS.maxColumns,
-    });
+    ({
+      ingested,
+      analysis,
+      document: common,
+    } = await ingestCapture(
+      source.pipe(meter),
+      {
+        map: run.columnMapping as Record<string, CaptureField | "ignore">,
+        site: site ? { latitudeDeg: site.latitudeDeg, longitudeDeg: site.longitudeDeg, altitudeM: site.altitudeM } : null,
+        capturedOn: run.capturedOn,
+        units: unitsOf(run.units),
+        model: version.modelChoice,
+        mountingRotations,
+        magnetometerRangesUt,
+        seed: 1,
+      },
+      {
+        afterParse: async () => {
+          parsed = true;
+          await hooks.afterParse?.(versionId);
+          await setStage("Fitting", 0.65);
+        },
+      },
+    ));
   } catch (error) {
     if (error instanceof IngestError)
       return fail(versionId, { message: error.message, row: error.row ?? undefined, column: error.column ?? undefined });
+    // Inputs the analysis refuses are a final answer too; a RangeError while reading is not.
+    if (parsed && error instanceof RangeError) return fail(versionId, { message: error.message });
     throw error;
   }
-  await hooks.afterParse?.(versionId);
-
-  await setStage("Fitting", 0.65);
-  const slots = await models.RunSensor.findAll({ where: { runId: run.id }, include: [{ model: models.Sensor, as: "sensor" }] });
-  const mountingRotations: Record<string, string> = {};
-  for (const slot of slots) {
-    const sensor = (slot as unknown as { sensor: { kind: string; mountingRotation: string } }).sensor;
-    if (sensor.kind === "magnetometer") mountingRotations[slot.slot] = sensor.mountingRotation;
-  }
-  const site = version.site;
-  let analysis;
-  try {
-    analysis = analyseCapture(ingested.table, {
-      site: site ? { latitudeDeg: site.latitudeDeg, longitudeDeg: site.longitudeDeg, altitudeM: site.altitudeM } : null,
-      date: new Date(`${run.capturedOn}T12:00:00Z`),
-      units: unitsOf(run.units),
-      unitHints: ingested.unitHints,
-      model: version.modelChoice,
-      mountingRotations,
-      seed: 1,
-    });
-  } catch (error) {
-    if (error instanceof RangeError) return fail(versionId, { message: error.message });
-    throw error;
-  }
-  analysis.notes.unshift(...ingested.notes);
-  if (ingested.ignoredColumns.length) analysis.notes.push(`Columns not used: ${ingested.ignoredColumns.join(", ")}.`);
 
   await setStage("Saving", 0.9);
   const { table } = ingested;
@@ -133,8 +137,9 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
 
   const first = analysis.magnetometers.find((m) => m.ok) ?? null;
   const offsetNorm = first?.offset ? Math.hypot(...first.offset) : null;
+  // The common results document, then where the worker stored the samples and the view.
   const results = toJsonSafe({
-    ...analysis,
+    ...common,
     samples: {
       key: samplesKey,
       fields: table.fields,
@@ -142,7 +147,6 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       layout: "float32 little-endian, column-major, fields in order",
     },
     view: { key: viewKey, sampleCount: view.sampleCount, pointsShown: view.pointsShown },
-    file: { delimiter: ingested.delimiter, ignoredColumns: ingested.ignoredColumns, recognition: ingested.recognition },
   }) as Record<string, unknown>;
 
   const outcome = await sequelize.transaction(async (transaction) => {

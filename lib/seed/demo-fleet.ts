@@ -1,3 +1,4 @@
+import { captureDateAtNoonUtc } from "@/geometry/capture-date";
 import { magneticReference } from "@/geometry/magnetic-reference";
 import type { CaptureSpec } from "@/geometry/magnetometer-types";
 import { IDENTITY_MOUNTING_ID, mountingRotationById } from "@/geometry/mounting-rotations";
@@ -47,6 +48,7 @@ const mag = (
   placement: "internal" | "external",
   mountingRotation = IDENTITY_MOUNTING_ID,
   columnHints: string[] = [],
+  fullScaleRangeUt: number | null = null,
 ): SensorInput => ({
   kind: "magnetometer",
   label,
@@ -54,6 +56,7 @@ const mag = (
   mountingRotation,
   units: "uT",
   columnHints,
+  fullScaleRangeUt,
 });
 const accel: SensorInput = {
   kind: "accelerometer",
@@ -82,7 +85,8 @@ const VEHICLES: { vehicle: VehicleInput; sensors: SensorInput[] }[] = [
       customer: "Quillmere Survey",
       notes: "Primary mapping quad.",
     },
-    sensors: [mag("board", "internal"), mag("mast module", "external"), accel, gyro],
+    // The mast module's range is stated (±16 gauss); the board's is left to the default.
+    sensors: [mag("board", "internal"), mag("mast module", "external", IDENTITY_MOUNTING_ID, [], 1600), accel, gyro],
   },
   {
     vehicle: {
@@ -254,7 +258,7 @@ export async function seedDemoFleet(workspaceId: string, actorId: string, log: (
   }
   for (const demo of RUNS) {
     const site = sites.get(demo.site)!;
-    const field = magneticReference(site, new Date(`${demo.capturedOn}T12:00:00Z`)).fieldNedMicrotesla;
+    const field = magneticReference(site, captureDateAtNoonUtc(demo.capturedOn)).fieldNedMicrotesla;
     const csv = tableToCsv(simulateCapture({ ...demo.spec, siteFieldNed: field }).table);
     const { run } = await createRun(workspaceId, actorId, {
       vehicleId: vehicleIds.get(demo.vehicle)!,

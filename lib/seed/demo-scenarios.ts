@@ -86,19 +86,20 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
   },
   {
     name: "A magnetised part",
-    description: "A good tumble, but something on the vehicle near the compass is strongly magnetised.",
+    description:
+      "A good tumble, but something on the vehicle near the compass is strongly magnetised. The compass measures up to ±400 µT on each axis.",
     answer:
-      "A very large hard-iron offset: a magnetised part (a screw, a tool, a speaker magnet) sits close to the compass. The fit can subtract it, but an offset this size leaves little range and changes if the part moves. Find the part and demagnetise or move it.",
-    spec: { ...BASE, hardIronOffset: [250, -120, 90] },
+      "A very large hard-iron offset: a magnetised part (a screw, a tool, a speaker magnet) sits close to the compass. The fit can subtract it, but with the Earth's field added the readings reach within an eighth of the compass's ±400 µT range, and the offset changes if the part moves: a little more and the readings clip. Find the part and demagnetise or move it.",
+    spec: { ...BASE, hardIronOffset: [300, -120, 90], clipLevelMicrotesla: 400 },
     lesson: { verdict: "fail", checks: ["mag.hard-iron"] },
   },
   {
     name: "Crooked accelerometer holds",
     description: "The six accelerometer holds come first, then the tumble. Watch the holds.",
     answer:
-      "Each accelerometer hold is tilted about 15° from the face it should rest on, so the faces are not near right angles and the offsets and scales come out wrong. Rest the vehicle squarely on each face, using a box or a jig.",
-    spec: { ...BASE, holds: { ...SIX_FACES!, tiltDeg: 15 } },
-    lesson: { verdict: "fail", checks: ["accel.tilt"] },
+      "Each accelerometer hold is tilted about 30° from the face it should rest on. The offsets and scales can still be fitted, but holds this crooked leave them noticeably less certain than square holds would, and the level hold is so far from level that the level trim it gives is wrong. Rest the vehicle squarely on each face, using a box or a jig.",
+    spec: { ...BASE, holds: { ...SIX_FACES!, tiltDeg: 30 } },
+    lesson: { verdict: "fail", checks: ["accel.tilt", "accel.trim"] },
   },
 ];
 

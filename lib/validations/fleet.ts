@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { ACCEL_UNITS, FIELD_UNITS, MODEL_CHOICES, PLACEMENTS, RATE_UNITS, SENSOR_KINDS, VEHICLE_KINDS } from "@/lib/fleet-terms";
 import { IDENTITY_MOUNTING_ID, MOUNTING_IDS } from "@/geometry/mounting-rotations";
+import { MAGNETOMETER_RANGE_LIMITS_UT } from "@/geometry/magnetometer-range";
 
 const text = (max: number, label: string) => z.string().trim().max(max, `${label}: use at most ${max} characters.`);
 const optionalText = (max: number, label: string) => text(max, label).optional().default("");
@@ -35,6 +36,17 @@ export const vehicleUpdateSchema = vehicleSchema.extend({
 
 const ALL_UNITS = [...new Set([...FIELD_UNITS, ...ACCEL_UNITS, ...RATE_UNITS])] as [string, ...string[]];
 
+const RANGE_MESSAGE = `Full-scale range: give the compass's range in µT, between ${MAGNETOMETER_RANGE_LIMITS_UT.min} and ${MAGNETOMETER_RANGE_LIMITS_UT.max}, or leave it empty for the common default.`;
+
+/** A magnetometer's ± range in µT; empty or absent means not stated (null). */
+const fullScaleRange = z.preprocess(
+  (v) => (v === undefined || (typeof v === "string" && v.trim() === "") ? null : v),
+  z.coerce
+    .number({ error: RANGE_MESSAGE })
+    .refine((v) => Number.isFinite(v) && v >= MAGNETOMETER_RANGE_LIMITS_UT.min && v <= MAGNETOMETER_RANGE_LIMITS_UT.max, RANGE_MESSAGE)
+    .nullable(),
+);
+
 export const sensorSchema = z
   .object({
     kind: z.enum(SENSOR_KINDS, { error: "Choose the kind of sensor." }),
@@ -55,6 +67,11 @@ export const sensorSchema = z
         ),
       ])
       .default([]),
+    fullScaleRangeUt: fullScaleRange,
+  })
+  .refine((s) => s.kind === "magnetometer" || s.fullScaleRangeUt === null, {
+    path: ["fullScaleRangeUt"],
+    message: "Full-scale range: only a magnetometer's range is used; leave it empty for this kind of sensor.",
   })
   .refine(
     (s) =>

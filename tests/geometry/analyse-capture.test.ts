@@ -163,8 +163,10 @@ describe("analyseCapture", () => {
   test.each([
     { label: "strong soft iron", spec: { magnetometers: [{ softIron: "strong" as const }] }, id: "mag.soft-iron", cause: "ferrous-metal" },
     {
+      // On a ±120 µT compass the offset and the field reach about 108 µT on x: little range left, nothing clipped yet.
       label: "a large hard-iron offset",
-      spec: { magnetometers: [{ hardIronOffset: [60, -40, 30] as [number, number, number] }] },
+      spec: { magnetometers: [{ hardIronOffset: [60, -40, 30] as [number, number, number], clipLevel: 120 }] },
+      options: { magnetometerRangesUt: { compass_a: 120 } },
       id: "mag.hard-iron",
       cause: "magnetised-part",
     },
@@ -174,10 +176,18 @@ describe("analyseCapture", () => {
       id: "mag.samples-clipped",
       cause: "saturation",
     },
-  ])("$label fails its check and leads the diagnosis", ({ spec, id, cause }) => {
-    const { analysis } = analyse(spec);
+  ])("$label fails its check and leads the diagnosis", ({ spec, options, id, cause }) => {
+    const { analysis } = analyse(spec, options);
     expect(find(analysis.checks, id, "compass_a").status).toBe("fail");
     expect(analysis.diagnosis[0].id).toBe(cause);
+  });
+
+  test("a compass's stated range reaches its offset check; a range that is no range is refused, naming the compass", () => {
+    const spec = { magnetometers: [{ hardIronOffset: [60, -40, 30] as [number, number, number] }] };
+    const stated = find(analyse(spec, { magnetometerRangesUt: { compass_a: 1600 } }).analysis.checks, "mag.hard-iron", "compass_a");
+    expect(stated.status).toBe("pass");
+    expect(stated.explanation).toContain("the sensor's ±1600 µT range");
+    expect(() => analyse(spec, { magnetometerRangesUt: { compass_a: 0 } })).toThrow(/compass_a: the full-scale range/);
   });
 
   test("a field stated in the wrong unit fails as implausible and the diagnosis blames units", () => {

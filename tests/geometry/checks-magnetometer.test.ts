@@ -5,6 +5,7 @@ import {
   fieldPlausibleCheck,
   fieldVsModelCheck,
   fitCheck,
+  hardIronCheck,
   mountingCheck,
   softIronRatio,
 } from "@/geometry/checks-magnetometer";
@@ -16,9 +17,10 @@ import type {
   MountingRotation,
   RelativeRotationResult,
 } from "@/geometry/magnetometer-types";
+import { DEFAULT_MAGNETOMETER_RANGE_UT } from "@/geometry/magnetometer-range";
 import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { resolveThresholds } from "@/geometry/thresholds";
-import type { Mat3 } from "@/geometry/types";
+import type { Mat3, Vec3 } from "@/geometry/types";
 
 const thresholds = resolveThresholds();
 const site = { latitudeDeg: 60.2, longitudeDeg: 24.9, altitudeM: 30 };
@@ -93,6 +95,86 @@ describe("fieldPlausibleCheck", () => {
     { label: "a field stated in mG read as µT", strength: 480, status: "fail" },
   ])("$label", ({ strength, status }) => {
     expect(fieldPlausibleCheck("compass_a", calibration(strength), true, thresholds).status).toBe(status);
+  });
+});
+
+describe("hardIronCheck", () => {
+  /** A fitted compass with an offset, its field strength and the ellipsoid's half-widths per axis. */
+  const fitted = (offset: Vec3, fieldStrength: number, scales: Vec3 = [1, 1, 1]) =>
+    ({ ok: true, fieldStrength, hardIronOffset: offset, softIronMatrix: identity, scales }) as unknown as MagnetometerCalibration;
+  // Two invented sites at the two ends of the Earth's field (about 32 and 65 µT).
+  const weakSite = 32;
+  const strongSite = 65;
+  const sixty: Vec3 = [0, 36, 48]; // 60 µT long
+
+  test.each([
+    { label: "the common default range", range: undefined },
+    { label: "a stated ±800 µT", range: 800 },
+    { label: "a stated ±4900 µT", range: 4900 },
+  ])("the same 60 µT offset earns the same verdict at a weak and a strong site: $label", ({ range }) => {
+    const weak = hardIronCheck("compass_a", fitted(sixty, weakSite), true, range, thresholds);
+    const strong = hardIronCheck("compass_a", fitted(sixty, strongSite), true, range, thresholds);
+    expect(weak.status).toBe(strong.status);
+    expect(weak.status).toBe("pass");
+  });
+
+  test("the offset as a share of the field is stated as information, and it depends on the site", () => {
+    const weak = hardIronCheck("compass_a", fitted(sixty, weakSite), true, 800, thresholds);
+    const strong = hardIronCheck("compass_a", fitted(sixty, strongSite), true, 800, thresholds);
+    expect(weak.explanation).toContain(`${((100 * 60) / weakSite).toFixed(0)}% of the Earth's field`);
+    expect(strong.explanation).toContain(`${((100 * 60) / strongSite).toFixed(0)}% of the Earth's field`);
+    expect(weak.explanation).toContain("60.0 µT");
+  });
+
+  // Headroom on the worst axis: |b_y| + field · scale_y = 36 + 50 = 86 µT of the range.
+  test.each([
+    { range: 800, left: 100 * (1 - 86 / 800), status: "pass" },
+    { range: 200, left: 100 * (1 - 86 / 200), status: "pass" },
+    { range: 150, left: 100 * (1 - 86 / 150), status: "warn" },
+    { range: 100, left: 100 * (1 - 86 / 100), status: "fail" },
+    { range: 80, left: 100 * (1 - 86 / 80), status: "fail" },
+  ])("decided by the headroom: ±$range µT leaves $left% → $status", ({ range, left, status }) => {
+    const check = hardIronCheck("compass_a", fitted([20, 36, -30], 50), true, range, thresholds);
+    expect(check.status).toBe(status);
+    expect(check.measured).toBeCloseTo(left, 0);
+    expect(check.unit).toBe("% of range left");
+  });
+
+  test("the worst axis is the one whose offset and half-width reach furthest", () => {
+    // x: 40 + 50 · 1 = 90; z: 30 + 50 · 1.4 = 100.
+    const check = hardIronCheck("compass_a", fitted([40, 0, -30], 50, [1, 1, 1.4]), true, 200, thresholds);
+    expect(check.measured).toBeCloseTo(50, 6);
+    expect(check.explanation).toMatch(/the z axis reads up to 100\.0 µT/);
+  });
+
+  test("without a stated range the default is assumed and the text says so", () => {
+    const check = hardIronCheck("compass_a", fitted(sixty, 50), true, null, thresholds);
+    expect(check.explanation).toContain(
+      `assumed ±${DEFAULT_MAGNETOMETER_RANGE_UT} µT, the common range; set the sensor's range on its record`,
+    );
+    const stated = hardIronCheck("compass_a", fitted(sixty, 50), true, 1600, thresholds);
+    expect(stated.explanation).toContain("the sensor's ±1600 µT range");
+    expect(stated.explanation).not.toContain("assumed");
+  });
+
+  test("readings past the range are said to clip, and the advice is one sentence per piece", () => {
+    const check = hardIronCheck("compass_a", fitted([70, 0, 0], 50), true, 100, thresholds);
+    expect(check.status).toBe("fail");
+    expect(check.explanation).toMatch(/beyond the sensor's ±100 µT range, so readings in those attitudes clip\.$/);
+    expect(check.remedy).toMatch(/magnetised screws/);
+    const assumed = hardIronCheck("compass_a", fitted([700, 0, 0], 50), true, undefined, thresholds);
+    expect(assumed.remedy).toMatch(/If the sensor's range is wider than assumed, set it on the sensor's record\.$/);
+    for (const text of [check.explanation, check.remedy!, assumed.explanation, assumed.remedy!]) expect(text).not.toMatch(/\.\./);
+  });
+
+  test("skipped, with the share of the field, when the units are not known", () => {
+    const check = hardIronCheck("compass_a", fitted([300, 0, 400], 1000), false, 800, thresholds);
+    expect(check.status).toBe("skipped");
+    expect(check.explanation).toMatch(/50% of the Earth's field.*units are not known/);
+  });
+
+  test("a range that is no range is refused, naming the compass", () => {
+    expect(() => hardIronCheck("compass_b", fitted(sixty, 50), true, -800, thresholds)).toThrow(/compass_b: the full-scale range/);
   });
 });
 

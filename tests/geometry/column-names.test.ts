@@ -98,6 +98,62 @@ describe("recogniseColumns", () => {
   });
 });
 
+// Header dialects seen in logger exports (common practice): a unit after an underscore or in
+// brackets, written as it would be on its own, after camelCase axis letters.
+describe("recogniseColumns: units after an underscore or in brackets", () => {
+  test.each([
+    { header: "compassX_nT", field: "compass_a.x", unit: "nT" },
+    { header: "MagY[mG]", field: "compass_a.y", unit: "mG" },
+    { header: "accZ_g", field: "accel_a.z", unit: "g" },
+    { header: "gyroX_dps", field: "gyro_a.x", unit: "deg/s" },
+    { header: "mag_x (uT)", field: "compass_a.x", unit: "uT" },
+    { header: "AccelX[m/s^2]", field: "accel_a.x", unit: "m/s2" },
+    { header: "magZ_uT", field: "compass_a.z", unit: "uT" },
+    { header: "magX_µT", field: "compass_a.x", unit: "uT" },
+    { header: "magY_G", field: "compass_a.y", unit: "G" },
+    { header: "mag_z_gauss", field: "compass_a.z", unit: "G" },
+    { header: "magX_mGauss", field: "compass_a.x", unit: "mG" },
+    { header: "accelX_m/s2", field: "accel_a.x", unit: "m/s2" },
+    { header: "accY_ms-2", field: "accel_a.y", unit: "m/s2" },
+    { header: "gyroY_rad/s", field: "gyro_a.y", unit: "rad/s" },
+    { header: "gyroZ_deg/s", field: "gyro_a.z", unit: "deg/s" },
+    { header: "gyro_x rad/s", field: "gyro_a.x", unit: "rad/s" },
+    { header: "Battery Current_mA", field: "current", unit: "mA" },
+  ])("$header → $field in $unit", ({ header, field, unit }) => {
+    const result = recogniseColumns([header]);
+    expect(result.columns[0].field).toBe(field);
+    expect(result.columns[0].unitHint?.unit).toBe(unit);
+    expect(result.unitHints[field]?.unit).toBe(unit);
+  });
+
+  test("numbered sensors keep their numbers with a unit after them", () => {
+    const result = recogniseColumns(["Compass2X_nT", "compassX_nT", "magX1_uT"]);
+    expect(result.columns.map((c) => c.field)).toEqual(["compass_c.x", "compass_a.x", "compass_b.x"]);
+    expect(result.columns.map((c) => c.unitHint?.unit)).toEqual(["nT", "nT", "uT"]);
+  });
+
+  test.each([
+    { label: "a word that is no unit after the axis", header: "mag_x_furlongs" },
+    { label: "a unit glued to the axis letter", header: "magXuT" },
+    { label: "a unit after an unknown name", header: "temperature_degC" },
+  ])("$label ($header) is not recognised", ({ header }) => {
+    expect(recogniseColumns([header]).columns[0].field).toBeNull();
+  });
+
+  test("a unit of the wrong kind for the sensor gives no hint", () => {
+    // "dps" is a rate, so it says nothing about a compass column.
+    const result = recogniseColumns(["mag_x [dps]"]);
+    expect(result.columns[0].field).toBe("compass_a.x");
+    expect(result.columns[0].unitHint).toBeNull();
+  });
+
+  test("a mapped column keeps the unit written after an underscore", () => {
+    const result = recogniseColumns(["chan3_mG"], { chan3_mG: "compass_a.x" });
+    expect(result.columns[0].field).toBe("compass_a.x");
+    expect(result.columns[0].unitHint?.unit).toBe("mG");
+  });
+});
+
 describe("parseColumnMap", () => {
   test.each([
     { label: "two pairs", text: "a=compass_a.x,b=time", map: { a: "compass_a.x", b: "time" } },

@@ -1,7 +1,8 @@
 import fc from "fast-check";
 import { levenbergMarquardt } from "ml-levenberg-marquardt";
 import { describe, expect, test } from "vitest";
-import { fitEllipsoidAlgebraic, type EllipsoidEstimate } from "@/geometry/ellipsoid-fit";
+import { bootstrapIntervals } from "@/geometry/bootstrap";
+import { ellipsoidScales, fitEllipsoidAlgebraic, type EllipsoidEstimate } from "@/geometry/ellipsoid-fit";
 import { refineEllipsoid } from "@/geometry/ellipsoid-refine";
 import { createRandom } from "@/geometry/random";
 import { fromAxisAngle } from "@/geometry/rotation";
@@ -128,6 +129,56 @@ describe("refineEllipsoid", () => {
     staged.hardIronOffset.forEach((v, i) => expect(Math.abs(v - direct.hardIronOffset[i])).toBeLessThan(1e-3));
     expect(maxAbsDiff3(staged.softIronMatrix, direct.softIronMatrix)).toBeLessThan(1e-5);
   });
+
+  test("1,000,000 samples: the subsample stage and polishing land on the every-sample optimum, to 1% of its 95% interval", () => {
+    const series = ellipsoidSamples(1_000_000, OFFSET, STRONG, 48, 0.5, 23);
+    const start = fitEllipsoidAlgebraic(series, "full");
+    if (!start.ok) throw new Error(start.detail);
+    const fast = refineEllipsoid(series, start.estimate);
+    const exact = refineEllipsoid(series, start.estimate, {}, { subsample: false });
+    expect(exact.converged).toBe(true);
+    expect(fast.converged).toBe(true);
+    // Width of the offset's 95% interval from the exact fit's own bootstrap (the product's intervals).
+    const boot = bootstrapIntervals(series, "full", new Uint8Array(series.x.length).fill(1), {
+      offset: exact.estimate.hardIronOffset,
+      scales: ellipsoidScales(exact.estimate.softIronMatrix),
+      start: exact.estimate,
+    });
+    boot.offsetInterval95.forEach((interval, i) => {
+      const width = interval.high - interval.low;
+      expect(width).toBeGreaterThan(0);
+      // 1%: the polishing ends within a tenth of a standard error (a fortieth of the width)
+      // and then takes that last step, so it is far closer; stopping at the subsample's own
+      // optimum (some ten standard errors off) would miss by more than the width itself.
+      expect(Math.abs(fast.estimate.hardIronOffset[i] - exact.estimate.hardIronOffset[i])).toBeLessThan(0.01 * width);
+    });
+    // The residual is summed over every sample on both paths; steps this small change it by
+    // about a hundredth of one sample's squared residual, so a millionth is generous.
+    expect(Math.abs(fast.residualRms - exact.residualRms)).toBeLessThan(1e-6 * exact.residualRms);
+  }, 60_000);
+
+  test("half a sphere with a mask: the fast path still lands on the every-sample optimum", () => {
+    // Only the upper half of the directions (a partial turn), every seventh sample masked out.
+    const full = ellipsoidSamples(400_000, OFFSET, STRONG, 48, 0.5, 29);
+    const keep = new Uint8Array(full.x.length);
+    for (let i = 0; i < keep.length; i++) keep[i] = full.z[i] > OFFSET[2] && i % 7 !== 0 ? 1 : 0;
+    const start = fitEllipsoidAlgebraic(full, "full", { mask: keep });
+    if (!start.ok) throw new Error(start.detail);
+    const fast = refineEllipsoid(full, start.estimate, { mask: keep });
+    const exact = refineEllipsoid(full, start.estimate, { mask: keep }, { subsample: false });
+    const boot = bootstrapIntervals(full, "full", keep, {
+      offset: exact.estimate.hardIronOffset,
+      scales: ellipsoidScales(exact.estimate.softIronMatrix),
+      start: exact.estimate,
+    });
+    // Same 1% of the interval's width as above, for the same reason.
+    boot.offsetInterval95.forEach((interval, i) =>
+      expect(Math.abs(fast.estimate.hardIronOffset[i] - exact.estimate.hardIronOffset[i])).toBeLessThan(
+        0.01 * (interval.high - interval.low),
+      ),
+    );
+    expect(maxAbsDiff3(fast.estimate.softIronMatrix, exact.estimate.softIronMatrix)).toBeLessThan(1e-4);
+  }, 60_000);
 
   test("invariance (fast-check): rotating the data rotates W (W' = Q W Qᵀ) and the offset; scaling scales offset and R", () => {
     const base = ellipsoidSamples(400, OFFSET, STRONG, 48, 0.3);

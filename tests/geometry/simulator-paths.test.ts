@@ -2,7 +2,14 @@ import { describe, expect, test } from "vitest";
 import type { BodyFace } from "@/geometry/magnetometer-types";
 import { createRandom } from "@/geometry/random";
 import { angleBetweenRotationsDeg } from "@/geometry/rotation";
-import { faceAttitude, holdSegment, joinSegments, pathSegment, spiralSegment } from "@/geometry/simulator-paths";
+import {
+  faceAttitude,
+  holdSegment,
+  joinSegments,
+  pathSegment,
+  spiralSegment,
+  STEADY_SPIN_RATE_DEG_PER_S,
+} from "@/geometry/simulator-paths";
 import type { Vec3 } from "@/geometry/types";
 import { angleBetweenDeg, det3, mulMatVec, normalize, transpose3 } from "@/geometry/vector";
 
@@ -50,6 +57,23 @@ describe("spiralSegment and pathSegment", () => {
   test("yaw-only keeps the vehicle level", () => {
     const segment = pathSegment("yaw-only", 30, FIELD, createRandom(3));
     for (let t = 0; t <= 30; t += 1) expect(angleBetweenDeg(mulMatVec(segment.attitude(t), [0, 0, 1]), [0, 0, 1])).toBeLessThan(1e-9);
+  });
+});
+
+describe("the steady-spin path", () => {
+  test.each([
+    { label: "the default rate", rate: undefined, expected: STEADY_SPIN_RATE_DEG_PER_S },
+    { label: "a chosen rate", rate: 3, expected: 3 },
+  ])("stays level and turns about the vertical at one steady rate ($label)", ({ rate, expected }) => {
+    const segment = pathSegment("steady-spin", 30, FIELD, createRandom(6), rate);
+    let previous = segment.attitude(0);
+    for (let t = 0.5; t <= 30; t += 0.5) {
+      const r = segment.attitude(t);
+      expect(angleBetweenDeg(mulMatVec(r, [0, 0, 1]), [0, 0, 1])).toBeLessThan(1e-9);
+      expect(angleBetweenRotationsDeg(previous, r)).toBeCloseTo(expected * 0.5, 9);
+      previous = r;
+    }
+    expect(segment.acceleration(3)).toEqual([0, 0, 0]);
   });
 });
 

@@ -168,6 +168,43 @@ describe("simulateCapture", () => {
     expect(body.truth.magnetometers[1].rotationToMag0.flat().map((v) => Math.round(v))).toEqual([1, 0, 0, 0, 1, 0, 0, 0, 1]);
     expect(sensor.truth.magnetometers[1].rotationToMag0.flat().map((v) => Math.round(v))).toEqual(quarterTurn.flat());
   });
+
+  test("glitch bursts: a magnet adds a strong field and a stuck sensor repeats one value, only within the stretch", () => {
+    const plain = simulateCapture({ seed: 4, pathSeconds: 20, sampleRateHz: 20, magnetometers: [{ noise: 0 }, { noise: 0 }] });
+    const { table, truth } = simulateCapture({
+      seed: 4,
+      pathSeconds: 20,
+      sampleRateHz: 20,
+      magnetometers: [
+        { noise: 0, glitchBursts: [{ kind: "magnet", startS: 5, durationS: 1.5, fieldMultiple: 4 }] },
+        { noise: 0, glitchBursts: [{ kind: "stuck", startS: 12.05, durationS: 0.5, direction: [0, 0, 2] }] },
+      ],
+    });
+    // By hand: 5 s to 6.5 s at 20 Hz is samples 100 to 129; 12.05 s to 12.55 s is samples 241 to 250.
+    const [magnet] = truth.magnetometers[0].glitchBursts;
+    const [stuck] = truth.magnetometers[1].glitchBursts;
+    expect([magnet.startIndex, magnet.endIndex]).toEqual([100, 130]);
+    expect([stuck.startIndex, stuck.endIndex]).toEqual([241, 251]);
+    expect(stuck.fieldMultiple).toBe(5);
+    expect(stuck.direction).toEqual([0, 0, 1]);
+    const F = truth.fieldStrength;
+    const magnitude = (sensor: string, i: number) =>
+      Math.hypot(table.columns[`${sensor}.x`][i], table.columns[`${sensor}.y`][i], table.columns[`${sensor}.z`][i]);
+    for (let i = 0; i < table.length; i++) {
+      if (i >= magnet.startIndex && i < magnet.endIndex) {
+        // |B + 4F·d| lies between 3F and 5F whatever the directions (triangle inequality).
+        expect(magnitude("compass_a", i)).toBeGreaterThanOrEqual(3 * F - 1e-9);
+        expect(magnitude("compass_a", i)).toBeLessThanOrEqual(5 * F + 1e-9);
+      } else expect(table.columns["compass_a.x"][i]).toBe(plain.table.columns["compass_a.x"][i]);
+      if (i >= stuck.startIndex && i < stuck.endIndex) {
+        expect([table.columns["compass_b.x"][i], table.columns["compass_b.y"][i], table.columns["compass_b.z"][i]]).toEqual([0, 0, 5 * F]);
+      } else expect(table.columns["compass_b.z"][i]).toBe(plain.table.columns["compass_b.z"][i]);
+    }
+    // The magnet is carried past: its field turns, so the readings within the stretch change.
+    expect(Math.abs(table.columns["compass_a.x"][magnet.startIndex] - table.columns["compass_a.x"][magnet.endIndex - 1])).toBeGreaterThan(
+      1,
+    );
+  });
 });
 
 describe("tableToCsv", () => {

@@ -138,3 +138,53 @@ describe("findStillPeriods with a gyroscope", () => {
     expect(findStillPeriods(recording.time, recording.accel, { gyro: recording.gyro })).toHaveLength(1);
   });
 });
+
+describe("findStillPeriods with a compass", () => {
+  // An invented field (19 µT horizontal, 44 µT down) and hard-iron offset, in a level hold
+  // whose second half turns steadily about the vertical: invisible to the accelerometer.
+  function turningCompass(time: Float64Array, turnFromS: number, rateDegPerS: number, offset: [number, number] = [12, -6]) {
+    const n = time.length;
+    const compass = { x: new Float64Array(n), y: new Float64Array(n), z: new Float64Array(n) };
+    for (let i = 0; i < n; i++) {
+      const heading = (Math.max(0, time[i] - turnFromS) * rateDegPerS * Math.PI) / 180;
+      compass.x[i] = 19 * Math.cos(heading) + offset[0] + 0.05 * Math.sin(7.3 * i);
+      compass.y[i] = -19 * Math.sin(heading) + offset[1] + 0.05 * Math.cos(5.1 * i);
+      compass.z[i] = 44 + 4;
+    }
+    return compass;
+  }
+
+  // A horizontal offset adds to the turning horizontal field, so the heading the compass sees
+  // turns more slowly than the vehicle: by 19/(19 + 13.4) ≈ 0.59 at worst for the offset here.
+  test.each([
+    { label: "8 °/s, with an offset", rate: 8, offset: [12, -6] as [number, number], seen: 19 / (19 + Math.hypot(12, 6)) },
+    { label: "3 °/s, no offset", rate: 3, offset: [0, 0] as [number, number], seen: 1 },
+  ])("the stretch where the compass turns in the body frame is not still ($label)", ({ rate, offset, seen }) => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 16 }] });
+    const compass = turningCompass(recording.time, 6, rate, offset);
+    const without = findStillPeriods(recording.time, recording.accel);
+    const withCompass = findStillPeriods(recording.time, recording.accel, { compass });
+    expect(without).toHaveLength(1);
+    expect(without[0].endTimeS).toBeGreaterThan(15);
+    // The still part before the turn stays; nothing after the first few degrees of it.
+    expect(withCompass[0].durationS).toBeGreaterThan(5);
+    const limitS = 6 + 5 / (seen * rate) + 0.3;
+    for (const period of withCompass) expect(period.endTimeS).toBeLessThan(limitS);
+  });
+
+  test("a steady compass leaves the hold whole", () => {
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 10 }, { face: "-y", holdS: 10 }], seed: 3 });
+    const compass = turningCompass(recording.time, 1e9, 0);
+    const periods = findStillPeriods(recording.time, recording.accel, { compass, gyro: recording.gyro });
+    expect(periods).toHaveLength(2);
+    for (const period of periods) expect(period.durationS).toBeGreaterThan(8.5);
+  });
+
+  test("a turn about the vertical that the gyroscope's bias estimate would swallow is still found by the compass", () => {
+    // The whole recording turns at 8 °/s: the median rate is the turn, so the gyro alone is fooled.
+    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 20 }] });
+    for (let i = 0; i < recording.gyro.z.length; i++) recording.gyro.z[i] -= (8 * Math.PI) / 180;
+    const compass = turningCompass(recording.time, 0, 8);
+    expect(findStillPeriods(recording.time, recording.accel, { compass, gyro: recording.gyro })).toEqual([]);
+  });
+});

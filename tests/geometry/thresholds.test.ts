@@ -1,4 +1,5 @@
 import { describe, expect, test } from "vitest";
+import { plausibleFieldLimits } from "@/geometry/plausible-field";
 import { describeLimits, grade, resolveThresholds, THRESHOLDS, type Threshold } from "@/geometry/thresholds";
 
 describe("THRESHOLDS", () => {
@@ -38,10 +39,16 @@ describe("grade", () => {
 });
 
 describe("describeLimits", () => {
+  const plausible = plausibleFieldLimits();
   test.each([
     { label: "above", t: THRESHOLDS["mag.residual"], text: "warn above 2, fail above 5 % of field" },
     { label: "below", t: THRESHOLDS["mag.coverage"], text: "warn below 75, fail below 50 % of cells" },
-    { label: "range", t: THRESHOLDS["mag.field-plausible"], text: "warn outside 22–67, fail outside 15–100 µT" },
+    {
+      label: "range (warning limits computed from the model)",
+      t: THRESHOLDS["mag.field-plausible"],
+      text: `warn outside ${plausible.warnBelow}–${plausible.warnAbove}, fail outside 15–100 µT`,
+    },
+    { label: "headroom", t: THRESHOLDS["mag.hard-iron"], text: "warn below 50, fail below 20 % of range left" },
     { label: "fail only", t: THRESHOLDS["accel.faces"], text: "fail above 0 faces missing" },
   ])("$label", ({ t, text }) => {
     expect(describeLimits(t)).toBe(text);
@@ -60,6 +67,13 @@ describe("resolveThresholds", () => {
     expect(table["mag.residual"].source).toMatch(/set by the workspace \(default warn above 2, fail above 5 % of field, common practice\)/);
     expect(table["mag.coverage"]).toBe(THRESHOLDS["mag.coverage"]);
     expect(THRESHOLDS["mag.residual"].warnAbove).toBe(2);
+  });
+
+  test("a computed limit can be overridden and the other computed one stays", () => {
+    const table = resolveThresholds({ "mag.field-plausible": { warnBelow: 18 } });
+    expect(table["mag.field-plausible"].warnBelow).toBe(18);
+    expect(table["mag.field-plausible"].warnAbove).toBe(plausibleFieldLimits().warnAbove);
+    expect(table["mag.field-plausible"].source).toMatch(/^set by the workspace \(default warn outside .*WMM2025/);
   });
 
   test("unknown ids are ignored", () => {

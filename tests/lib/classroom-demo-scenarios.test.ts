@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { liveSnapshot } from "@/geometry/live-snapshot";
-import { scenarioCaptureSpec } from "@/geometry/scenario";
+import { scenarioCaptureSpec, scenarioMagnetometerRanges } from "@/geometry/scenario";
 import { simulateCapture } from "@/geometry/simulator";
 import { SCENARIO_UNITS } from "@/lib/classroom/snapshot-cache";
 import { DEMO_SCENARIOS } from "@/lib/seed/demo-scenarios";
@@ -14,6 +14,7 @@ function endOf(spec: (typeof DEMO_SCENARIOS)[number]["spec"], fraction = 1) {
     units: SCENARIO_UNITS,
     site: spec.site,
     date: new Date(`${spec.date}T12:00:00Z`),
+    magnetometerRangesUt: scenarioMagnetometerRanges(spec),
   });
 }
 

@@ -10,9 +10,9 @@ import { simulateCapture, tableToCsv } from "@/geometry/simulator";
 const root = path.resolve(__dirname, "../..");
 let folder = "";
 
-/** Runs the CLI as `npm run fit` does (tsx on scripts/fit.ts). */
+/** Runs the CLI as `npm run fit` does: plain node on the launcher, which runs the compiled bundle. */
 function fit(...args: string[]) {
-  const result = spawnSync(process.execPath, ["--import", "tsx", path.join(root, "scripts/fit.ts"), ...args], {
+  const result = spawnSync(process.execPath, [path.join(root, "scripts/fit.mjs"), ...args], {
     cwd: root,
     encoding: "utf8",
     timeout: 120_000,
@@ -49,12 +49,15 @@ describe("npm run fit", () => {
       magnetometers: [{ hardIronOffset: [10, -4, 7], softIron: "mild" }, { hardIronOffset: [-3, 2, 5] }],
     });
     const file = write("good.csv", tableToCsv(table));
-    // A southern site starts with a minus sign, so it is written with "=".
-    const { code, stdout, stderr } = fit(file, "--site=-33.9,18.4,20", "--date", "2026-02-01", "--units", "uT", "--model", "auto");
+    // A southern site starts with a minus sign and is typed as written.
+    const { code, stdout, stderr } = fit(file, "--site", "-33.9,18.4,20", "--date", "2026-02-01", "--units", "uT", "--model", "auto");
     expect(stderr).toBe("");
     expect(code).toBe(0);
     const document = JSON.parse(stdout);
     expect(document.verdict).toBe("pass");
+    expect(document.site).toEqual(site);
+    // The capture date stands for noon UTC of that day, as in the worker.
+    expect(document.date).toBe("2026-02-01T12:00:00.000Z");
     expect(document.magnetometers).toHaveLength(2);
     for (const mag of document.magnetometers) {
       expect(mag.offset).toHaveLength(3);
@@ -173,6 +176,96 @@ describe("npm run fit", () => {
     },
     120_000,
   );
+});
+
+describe("npm run fit: sites south and west of zero", () => {
+  const { table } = simulateCapture({ seed: 5, pathSeconds: 20, accelerometer: false, gyro: false });
+  // Where the field model is evaluated is printed back as `site`; each form must give the same numbers.
+  test.each([
+    { label: "south, after a space", args: ["--site", "-33.9,151.2,0"], site: { latitudeDeg: -33.9, longitudeDeg: 151.2, altitudeM: 0 } },
+    { label: "south, after =", args: ["--site=-33.9,151.2,0"], site: { latitudeDeg: -33.9, longitudeDeg: 151.2, altitudeM: 0 } },
+    { label: "west, after a space", args: ["--site", "40.4,-3.7,650"], site: { latitudeDeg: 40.4, longitudeDeg: -3.7, altitudeM: 650 } },
+    {
+      label: "south-west, after a space",
+      args: ["--site", "-12.05,-77.04,150"],
+      site: { latitudeDeg: -12.05, longitudeDeg: -77.04, altitudeM: 150 },
+    },
+    { label: "south-west, after =", args: ["--site=-12.05,-77.04"], site: { latitudeDeg: -12.05, longitudeDeg: -77.04, altitudeM: 0 } },
+    { label: "a decimal without its zero", args: ["--site", "-.5,-0.5,1"], site: { latitudeDeg: -0.5, longitudeDeg: -0.5, altitudeM: 1 } },
+  ])(
+    "$label",
+    ({ args, site: expected }) => {
+      const file = write("hemispheres.csv", tableToCsv(table));
+      const { code, stdout, stderr } = fit(file, ...args, "--date", "2026-03-01", "--units", "uT");
+      expect(stderr).toBe("");
+      expect(code).toBe(0);
+      const document = JSON.parse(stdout);
+      expect(document.site).toEqual(expected);
+      expect(document.reference.magnetic).not.toBeNull();
+    },
+    120_000,
+  );
+
+  test("a latitude beyond the south pole is refused by name", () => {
+    const { code, stderr } = fit("x.csv", "--site", "-95,10");
+    expect(code).toBe(2);
+    expect(stderr).toMatch(/--site latitude -95 is outside/);
+  });
+});
+
+describe("npm run fit: units written in the column names", () => {
+  // Column names in the dialects of logger exports (common practice): camelCase axis letters, a unit after an underscore or in brackets.
+  const { table } = simulateCapture({ seed: 9, pathSeconds: 20, holds: { faces: SIX }, gyro: false });
+  const renamed = (csv: string) => {
+    const lines = csv.split("\n");
+    const header = lines[0].split(",");
+    const names: Record<string, string> = {
+      time: "time_ms",
+      "compass_a.x": "compassX_nT",
+      "compass_a.y": "MagY_nT",
+      "compass_a.z": "magZ[nT]",
+      "accel_a.x": "accX_g",
+      "accel_a.y": "AccelY[g]",
+      "accel_a.z": "accZ_g",
+    };
+    const scale: Record<string, number> = { time: 1000, "compass_a.x": 1000, "compass_a.y": 1000, "compass_a.z": 1000 };
+    for (const name of ["accel_a.x", "accel_a.y", "accel_a.z"]) scale[name] = 1 / 9.80665;
+    const out = [header.map((h) => names[h] ?? h).join(",")];
+    for (const line of lines.slice(1)) {
+      if (!line) continue;
+      out.push(
+        line
+          .split(",")
+          .map((cell, i) => String(Number(cell) * (scale[header[i]] ?? 1)))
+          .join(","),
+      );
+    }
+    return `${out.join("\n")}\n`;
+  };
+
+  test("without --units the units come from the header; --units still wins", () => {
+    const file = write("dialect.csv", renamed(tableToCsv(table)));
+    const fromHeader = fit(file);
+    expect(fromHeader.code).toBe(0);
+    const document = JSON.parse(fromHeader.stdout);
+    expect(document.units.compass_a).toMatchObject({ spec: { unit: "nT" }, how: "column name" });
+    expect(document.units.accel_a).toMatchObject({ spec: { unit: "g" }, how: "column name" });
+    expect(document.units.time).toMatchObject({ spec: { unit: "ms" }, how: "column name" });
+    // Read in nT, the field is the simulated one in µT.
+    const plain = JSON.parse(fit(write("plain.csv", tableToCsv(table)), "--units", "uT").stdout);
+    expect(document.magnetometers[0].fieldStrength).toBeCloseTo(plain.magnetometers[0].fieldStrength, 3);
+
+    const stated = JSON.parse(fit(file, "--units", "uT").stdout);
+    expect(stated.units.compass_a).toMatchObject({ spec: { unit: "uT" }, how: "stated" });
+  }, 120_000);
+
+  test("a file whose headers name no sensor gets the message naming them", () => {
+    const file = write("unknown.csv", `time,temperature_degC,pressure [hPa]\n${"1,20,1000\n".repeat(60)}`);
+    const { code, stderr } = fit(file);
+    expect(code).toBe(2);
+    expect(stderr).toContain('"temperature_degC", "pressure [hPa]"');
+    expect(stderr).toMatch(/row 1: missing required columns/);
+  });
 });
 
 describe("npm run fit --mount", () => {

@@ -258,14 +258,24 @@ export function tiltCheck(sensor: string, input: AccelerometerCheckInput, thresh
       "accel.tilt",
       title,
       sensor,
-      sentences(angleWords, `Only ${holds.length} holds were found, fewer than the six a fit needs, so what their tilt does to it cannot be judged`),
+      sentences(
+        angleWords,
+        `Only ${holds.length} holds were found, fewer than the six a fit needs, so what their tilt does to it cannot be judged`,
+      ),
     );
   }
   const geometry = holdGeometry(holds.map((hold) => hold.reading));
   const remedy = "Rest the vehicle against a square edge (a box or the corner of a table) for each face.";
   if (!Number.isFinite(geometry.worstInflation)) {
     return {
-      ...skippedCheck(thresholds, "accel.tilt", title, sensor, sentences(angleWords, "Together the holds do not pin down every offset and scale"), remedy),
+      ...skippedCheck(
+        thresholds,
+        "accel.tilt",
+        title,
+        sensor,
+        sentences(angleWords, "Together the holds do not pin down every offset and scale"),
+        remedy,
+      ),
       status: "fail",
     };
   }

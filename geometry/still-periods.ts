@@ -18,8 +18,9 @@
  * A steady turn about the vertical is the hard case: gravity does not move, and a gyro that
  * reads the turn all along looks just like a gyro with a bias. So the bias removed before the
  * rate tests is the median rate over the accelerometer-still samples whose rate about the
- * vertical is small enough to be a MEMS bias (a rate about a horizontal axis would tip
- * gravity, so the accelerometer vouches for those axes). If none is, the compass decides:
+ * vertical, averaged over the window, is small enough to be a MEMS bias (a rate about a
+ * horizontal axis would tip gravity, so the accelerometer vouches for those axes). If none
+ * is, the compass decides:
  * when its heading turns during those samples, they are a turn and no bias is removed;
  * otherwise (or with no compass) the median over all of them is used, and without a compass
  * gyro-bias.ts declines to call the result a bias. With the bias known, the gyro judges turns
@@ -193,14 +194,33 @@ function markLowRate(series: Vec3Series, bias: [number, number, number], halfWin
   }
 }
 
-/** The marked samples whose rate about the accelerometer's vertical is at most `limit`; null when none is. */
-function plausibleBiasSamples(gyro: Vec3Series, accel: Vec3Series, mask: Uint8Array, limit: number): Uint8Array | null {
-  const kept = new Uint8Array(mask.length);
+/**
+ * The marked samples whose mean rate about the accelerometer's vertical, over the window
+ * centred on them, is at most `limit`; null when none is. The window mean, because a hand's
+ * wobble swings the rate to and fro far faster than any bias, and averages away.
+ */
+function plausibleBiasSamples(gyro: Vec3Series, accel: Vec3Series, mask: Uint8Array, halfWindow: number, limit: number): Uint8Array | null {
+  const n = mask.length;
+  const kept = new Uint8Array(n);
+  const sums = [0, 0, 0, 0, 0, 0]; // rate x, y, z, then acceleration x, y, z
+  const columns = [gyro.x, gyro.y, gyro.z, accel.x, accel.y, accel.z];
+  let lo = 0;
+  let hi = -1;
   let count = 0;
-  for (let i = 0; i < mask.length; i++) {
+  for (let i = 0; i < n; i++) {
+    const wantHi = Math.min(n - 1, i + halfWindow);
+    const wantLo = Math.max(0, i - halfWindow);
+    while (hi < wantHi) {
+      hi++;
+      for (let k = 0; k < 6; k++) sums[k] += columns[k][hi];
+    }
+    while (lo < wantLo) {
+      for (let k = 0; k < 6; k++) sums[k] -= columns[k][lo];
+      lo++;
+    }
     if (mask[i] !== 1) continue;
-    const length = Math.hypot(accel.x[i], accel.y[i], accel.z[i]);
-    const vertical = (gyro.x[i] * accel.x[i] + gyro.y[i] * accel.y[i] + gyro.z[i] * accel.z[i]) / length;
+    const length = Math.hypot(sums[3], sums[4], sums[5]);
+    const vertical = (sums[0] * sums[3] + sums[1] * sums[4] + sums[2] * sums[5]) / length / (hi - lo + 1);
     if (Math.abs(vertical) <= limit) {
       kept[i] = 1;
       count++;
@@ -263,7 +283,7 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
 
   // The bias, from samples that every other test calls still (see the header).
   let bias: [number, number, number];
-  const plausible = plausibleBiasSamples(gyro, accel, mask, MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S);
+  const plausible = plausibleBiasSamples(gyro, accel, mask, halfWindow, MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S);
   if (plausible) bias = maskedMedian(gyro, plausible);
   else if (compass && headingTurns(timeS, accel, mask, run, compass)) bias = [0, 0, 0];
   else bias = maskedMedian(gyro, mask);
@@ -375,7 +395,8 @@ function splitRuns(
         if (!hasAnchor || drifted || headingTurned || turned) {
           // The turn began somewhere since the last split: if that piece is too short to be a
           // hold of its own, it is taken for the start of the turn.
-          if (headingTurned && turning && turningFrom < 0) turningFrom = timeS[blockStart] - timeS[start] < minDurationS ? start : blockStart;
+          if (headingTurned && turning && turningFrom < 0)
+            turningFrom = timeS[blockStart] - timeS[start] < minDurationS ? start : blockStart;
           if (drifted || headingTurned || turned) {
             close(blockStart);
             start = blockStart;

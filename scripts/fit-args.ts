@@ -8,13 +8,14 @@ import type { CaptureUnits } from "@/geometry/capture-units";
 import { parseColumnMap } from "@/geometry/column-names";
 import type { Site } from "@/geometry/magnetic-reference";
 import type { MagModelChoice } from "@/geometry/magnetometer-types";
+import { MAGNETOMETER_RANGE_LIMITS_UT } from "@/geometry/magnetometer-range";
 import { mountingRotationById } from "@/geometry/mounting-rotations";
 import { familyOfSlot } from "@/geometry/sensor-slots";
 import { parseUnit } from "@/geometry/units";
 import type { CaptureInputs } from "@/lib/ingest/ingest-capture";
 
 export const USAGE =
-  "usage: npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT[,g,deg/s,ms]] [--model auto|sphere|axis|full] [--map col=field,...] [--mount compass_b=x-right.z-down,...] [--seed N]";
+  "usage: npm run fit -- <file.csv> [--site lat,lon,alt] [--date YYYY-MM-DD] [--units uT[,g,deg/s,ms]] [--model auto|sphere|axis|full] [--map col=field,...] [--mount compass_b=x-right.z-down,...] [--range compass_a=800,...] [--seed N]";
 
 /** Bad arguments: the message, then the usage line, and exit code 2. */
 export class UsageError extends Error {}
@@ -26,6 +27,7 @@ export const FIT_OPTIONS = {
   model: { type: "string" },
   map: { type: "string" },
   mount: { type: "string" },
+  range: { type: "string" },
   seed: { type: "string" },
   help: { type: "boolean", short: "h" },
 } as const;
@@ -103,6 +105,24 @@ export function parseMounts(text: string): Record<string, string> {
   return mounts;
 }
 
+/** `--range compass_a=800,compass_b=1600`: each compass's full-scale range, ± µT per axis. */
+export function parseRanges(text: string): Record<string, number> {
+  const ranges: Record<string, number> = {};
+  const { min, max } = MAGNETOMETER_RANGE_LIMITS_UT;
+  for (const pair of text.split(",").filter((s) => s.trim())) {
+    const [sensor, value] = pair.split("=").map((s) => s.trim());
+    if (familyOfSlot(sensor ?? "") !== "mag" || !value) {
+      throw new UsageError(`--range "${pair}" should be compass=µT, e.g. compass_a=800 for a ±800 µT compass`);
+    }
+    const range = Number(value);
+    if (!/^\d+(\.\d+)?$/.test(value) || !(range >= min && range <= max)) {
+      throw new UsageError(`--range "${pair}": the full-scale range should be a number of µT from ${min} to ${max}, e.g. 800`);
+    }
+    ranges[sensor] = range;
+  }
+  return ranges;
+}
+
 export type FitArgs = { help: true } | { help: false; file: string; inputs: CaptureInputs };
 
 /** Reads the command line; throws a UsageError naming the argument that is wrong. */
@@ -139,6 +159,7 @@ function fitInputsOf(values: { [K in keyof typeof FIT_OPTIONS]?: string | boolea
     model,
     map,
     mountingRotations: text("mount") ? parseMounts(text("mount")!) : {},
+    magnetometerRangesUt: text("range") ? parseRanges(text("range")!) : {},
     seed,
   };
 }

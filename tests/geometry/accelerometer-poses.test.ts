@@ -127,7 +127,13 @@ describe("wobble above the sensor's noise floor", () => {
   });
 
   test("a real wobble shows through a noisy sensor", () => {
-    const poses = posesOf([{ face: "+z", holdS: 6 }, { face: "-y", holdS: 6, wobbleDeg: 2 }], { noise: 0.2 });
+    const poses = posesOf(
+      [
+        { face: "+z", holdS: 6 },
+        { face: "-y", holdS: 6, wobbleDeg: 2 },
+      ],
+      { noise: 0.2 },
+    );
     // 2° amplitude, RMS 2/√2 ≈ 1.41°; what remains above the floor is most of it.
     expect(poses[1].wobbleDeg).toBeGreaterThan(1);
     expect(poses[1].wobbleDeg).toBeLessThan(1.7);

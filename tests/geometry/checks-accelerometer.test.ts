@@ -21,7 +21,8 @@ describe("facesCheck", () => {
 });
 
 describe("wobbleCheck", () => {
-  const pose = (face: AccelerometerPose["face"], wobbleDeg: number) => ({ face, wobbleDeg, noiseFloorDeg: 0.07, durationS: 4 }) as AccelerometerPose;
+  const pose = (face: AccelerometerPose["face"], wobbleDeg: number) =>
+    ({ face, wobbleDeg, noiseFloorDeg: 0.07, durationS: 4 }) as AccelerometerPose;
   test.each([
     { label: "steady holds", wobble: 0.1, status: "pass" },
     { label: "one shaky hold", wobble: 0.9, status: "warn" },

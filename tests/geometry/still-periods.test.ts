@@ -173,7 +173,13 @@ describe("findStillPeriods with a compass", () => {
   });
 
   test("a steady compass leaves the hold whole", () => {
-    const recording = accelerometerRecording({ holds: [{ face: "+z", holdS: 10 }, { face: "-y", holdS: 10 }], seed: 3 });
+    const recording = accelerometerRecording({
+      holds: [
+        { face: "+z", holdS: 10 },
+        { face: "-y", holdS: 10 },
+      ],
+      seed: 3,
+    });
     const compass = turningCompass(recording.time, 1e9, 0);
     const periods = findStillPeriods(recording.time, recording.accel, { compass, gyro: recording.gyro });
     expect(periods).toHaveLength(2);

@@ -76,3 +76,18 @@ describe("parseFitArgs", () => {
     expect(parseFitArgs(["--help"])).toEqual({ help: true });
   });
 });
+
+describe("--range", () => {
+  test("gives each compass its full-scale range in µT", () => {
+    const args = parseFitArgs(["capture.csv", "--range", "compass_a=800, compass_b=1600"]);
+    expect(args.help).toBe(false);
+    if (!args.help) expect(args.inputs.magnetometerRangesUt).toEqual({ compass_a: 800, compass_b: 1600 });
+  });
+
+  test.each(["accel_a=800", "compass_a", "compass_a=lots", "compass_a=0", "compass_a=-800", "compass_a=20000"])(
+    "refuses %j, naming the argument",
+    (value) => {
+      expect(() => parseFitArgs(["capture.csv", "--range", value])).toThrow(/--range/);
+    },
+  );
+});

@@ -247,9 +247,12 @@ describe("analyseCapture: accelerometer from a simulated recording", () => {
   });
 
   test.each([
-    { label: "8° off square warns", tiltDeg: 8, status: "warn" },
-    { label: "20° off square fails", tiltDeg: 20, status: "fail" },
-  ])("a tilted pose is flagged: $label", ({ tiltDeg, status }) => {
+    // Judged by what the tilt does to the fit's uncertainty (hold-geometry.ts), not by degrees:
+    // 18° holds still pin the offsets and scales (the case), 30° widen them, 45° spoil them.
+    { label: "18° off square passes", tiltDeg: 18, status: "pass" },
+    { label: "30° off square warns", tiltDeg: 30, status: "warn" },
+    { label: "45° off square fails", tiltDeg: 45, status: "fail" },
+  ])("a tilted pose is judged by the fit's conditioning: $label", ({ tiltDeg, status }) => {
     const { analysis } = analyse({ holds: { faces: SIX, tiltDeg } });
     expect(find(analysis.checks, "accel.tilt", "accel_a").status).toBe(status);
   });

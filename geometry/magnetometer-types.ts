@@ -221,11 +221,11 @@ export interface CurrentCouplingResult {
 
 export type SoftIronLevel = "none" | "mild" | "strong";
 
-/** Rotation paths of a simulated capture; "none" keeps the vehicle still (e.g. a motor-run capture). */
-export type RotationPath = "full" | "yaw-only" | "upper-half" | "partial" | "none";
-
-/** Paths the simulator offers that teaching scenarios do not (yet): "steady-spin", a steady turn on level ground. */
-export type SimulatorOnlyPath = "steady-spin";
+/**
+ * Rotation paths of a simulated capture; "steady-spin" turns the vehicle level at one steady
+ * rate; "none" keeps the vehicle still (e.g. a motor-run capture).
+ */
+export type RotationPath = "full" | "yaw-only" | "upper-half" | "partial" | "steady-spin" | "none";
 
 /** Which body axis points down during a still hold: "+z" level, "-z" upside down, "+x" nose down, … */
 export type BodyFace = "+x" | "-x" | "+y" | "-y" | "+z" | "-z";
@@ -299,7 +299,7 @@ export interface CaptureSpec {
   /** Length of the rotation path in seconds. Default 60. */
   pathSeconds?: number;
   /** Default "full". */
-  path?: RotationPath | SimulatorOnlyPath;
+  path?: RotationPath;
   /** Site field in the NED frame, µT. Default an invented mid-latitude value. */
   siteFieldNed?: Vec3;
   /** Gravity magnitude, m/s². Default 9.80665 (standard gravity, CGPM 1901). */

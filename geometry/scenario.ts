@@ -5,9 +5,33 @@
  */
 import { captureDateAtNoonUtc } from "./capture-date";
 import { magneticReference } from "./magnetic-reference";
-import type { BodyFace, CaptureSpec, RotationPath, SimulatedMagnetometerSpec, SoftIronLevel } from "./magnetometer-types";
+import type { BodyFace, CaptureSpec, GlitchBurstSpec, RotationPath, SimulatedMagnetometerSpec, SoftIronLevel } from "./magnetometer-types";
 import { mountingRotationById } from "./mounting-rotations";
 import type { Mat3, Vec3 } from "./types";
+
+/**
+ * A stretch of bad compass readings: "magnet" — a magnet or a phone carried past the vehicle,
+ * adding a strong field; "stuck" — the sensor repeats one fixed value (a loose connector).
+ * `fieldMultiple` is the size of the added field or of the fixed value, in site field strengths.
+ */
+export interface ScenarioGlitchBurst {
+  kind: GlitchBurstSpec["kind"];
+  /** Seconds from the start of the capture (holds included). */
+  startS: number;
+  durationS: number;
+  fieldMultiple: number;
+}
+
+/**
+ * Limits of a scenario's glitch burst (engineering choice): from a tenth of a second (a few
+ * samples at common logger rates) to 10 s (long enough that the class should redo the
+ * capture); from 1.5 times the site field (clearly off the sphere) to 20 times (a phone or a
+ * tool held close).
+ */
+export const GLITCH_BURST_LIMITS = {
+  durationS: { min: 0.1, max: 10 },
+  fieldMultiple: { min: 1.5, max: 20 },
+} as const;
 
 export interface ScenarioSpec {
   site: { name: string; latitudeDeg: number; longitudeDeg: number; altitudeM: number };
@@ -32,6 +56,8 @@ export interface ScenarioSpec {
   holds: { faces: BodyFace[]; wobbleDeg: number; tiltDeg: number } | null;
   /** Steel this many metres from the capture spot. */
   steel: { distanceM: number } | null;
+  /** A glitch burst on the first compass; absent in scenarios saved before it existed. */
+  glitchBurst?: ScenarioGlitchBurst | null;
 }
 
 export const DEFAULT_SCENARIO: ScenarioSpec = {
@@ -49,6 +75,7 @@ export const DEFAULT_SCENARIO: ScenarioSpec = {
   clipLevelMicrotesla: null,
   holds: null,
   steel: null,
+  glitchBurst: null,
 };
 
 function rotation(id: string, what: string): Mat3 {
@@ -66,6 +93,11 @@ export function scenarioMagnetometerRanges(spec: Pick<ScenarioSpec, "clipLevelMi
   return spec.clipLevelMicrotesla ? { compass_a: spec.clipLevelMicrotesla } : {};
 }
 
+function glitchBurstOf(burst: ScenarioGlitchBurst): GlitchBurstSpec {
+  const { kind, startS, durationS, fieldMultiple } = burst;
+  return { kind, startS, durationS, fieldMultiple };
+}
+
 /** The simulator's spec for a scenario (throws RangeError naming a bad rotation). */
 export function scenarioCaptureSpec(spec: ScenarioSpec): CaptureSpec {
   const field = magneticReference(spec.site, captureDateAtNoonUtc(spec.date)).fieldNedMicrotesla;
@@ -75,6 +107,7 @@ export function scenarioCaptureSpec(spec: ScenarioSpec): CaptureSpec {
     noise: spec.noiseMicrotesla,
     ...(spec.clipLevelMicrotesla ? { clipLevel: spec.clipLevelMicrotesla } : {}),
     ...(spec.currentCoupling ? { currentCoupling: spec.currentCoupling.perAmpMicrotesla } : {}),
+    ...(spec.glitchBurst ? { glitchBursts: [glitchBurstOf(spec.glitchBurst)] } : {}),
   };
   const magnetometers: SimulatedMagnetometerSpec[] = [first];
   if (spec.secondCompass) {

@@ -20,7 +20,7 @@
  *   only the compass and the gyroscope show the turn;
  * - none: held still, level.
  */
-import type { BodyFace, RotationPath, SimulatedHoldsSpec, SimulatorOnlyPath } from "./magnetometer-types";
+import type { BodyFace, RotationPath, SimulatedHoldsSpec } from "./magnetometer-types";
 import type { RandomSource } from "./random";
 import { fromAxisAngle, fromYawPitchRoll, interpolateRotation, minimalRotation, rotationExp } from "./rotation";
 import type { Mat3, Vec3 } from "./types";
@@ -118,7 +118,7 @@ export const STEADY_SPIN_RATE_DEG_PER_S = 8;
  * `spinRateDegPerS` is the rate of the steady-spin path (positive turns clockwise seen from above).
  */
 export function pathSegment(
-  path: RotationPath | SimulatorOnlyPath,
+  path: RotationPath,
   seconds: number,
   field: Vec3,
   random: RandomSource,

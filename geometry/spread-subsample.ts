@@ -96,9 +96,11 @@ export function spreadSubsample(series: Vec3Series, selection: SampleSelection =
   const cells = new Uint16Array(Math.ceil(selected / every));
   const counts = new Int32Array(CELL_COUNT);
   let n = 0;
-  for (let k = 0, rankSelected = 0; k < total; k++) {
+  for (let k = 0, wait = 0; k < total; k++) {
     const i = indices ? indices[k] : k;
-    if ((mask && mask[i] === 0) || rankSelected++ % every !== 0) continue;
+    if (mask && mask[i] === 0) continue;
+    if (wait-- > 0) continue;
+    wait = every - 1;
     const cell = cubeCell(x[i] - cx, y[i] - cy, z[i] - cz);
     cells[n++] = cell;
     counts[cell]++;
@@ -127,9 +129,11 @@ export function spreadSubsample(series: Vec3Series, selection: SampleSelection =
   }
   const rank = new Int32Array(CELL_COUNT);
   const chosen: number[] = [];
-  for (let k = 0, rankSelected = 0, candidate = 0; k < total; k++) {
+  for (let k = 0, wait = 0, candidate = 0; k < total; k++) {
     const i = indices ? indices[k] : k;
-    if ((mask && mask[i] === 0) || rankSelected++ % every !== 0) continue;
+    if (mask && mask[i] === 0) continue;
+    if (wait-- > 0) continue;
+    wait = every - 1;
     const cell = cells[candidate++];
     const position = start[cell] + rank[cell]++;
     if (position !== nextPosition[cell]) continue;

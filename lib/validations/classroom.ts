@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { MOUNTING_IDS } from "@/geometry/mounting-rotations";
-import type { ScenarioSpec } from "@/geometry/scenario";
+import { GLITCH_BURST_LIMITS, type ScenarioSpec } from "@/geometry/scenario";
 import { DEFAULT_STEP_SECONDS, SPEED_RANGE } from "@/lib/classroom/playback-clock";
 
 /**
@@ -22,7 +22,8 @@ const vec3 = (label: string, limit: number) =>
 const mountingId = (label: string) => z.enum(MOUNTING_IDS, { error: `${label}: choose one of the 48 mountings, e.g. x-right.z-down.` });
 
 const BODY_FACES = ["+x", "-x", "+y", "-y", "+z", "-z"] as const;
-export const ROTATION_PATHS = ["full", "yaw-only", "upper-half", "partial"] as const;
+export const ROTATION_PATHS = ["full", "yaw-only", "upper-half", "partial", "steady-spin"] as const;
+export const GLITCH_BURST_KINDS = ["magnet", "stuck"] as const;
 export const SOFT_IRON_CHOICES = ["none", "mild", "strong"] as const;
 
 function det3(m: number[][]): number {
@@ -71,7 +72,7 @@ export const scenarioSpecSchema = z
       .refine((d) => d >= "2020-01-01" && d <= "2035-12-31", "Choose a date between 2020 and 2035 (the World Magnetic Model's span)."),
     seed: z.number({ error: "Seed must be a whole number." }).int("Seed must be a whole number.").min(0).max(2_147_483_647),
     sampleRateHz: number("Sample rate", 5, 200),
-    path: z.enum(ROTATION_PATHS, { error: "Choose a rotation path: full, yaw only, upper half or partial." }),
+    path: z.enum(ROTATION_PATHS, { error: "Choose a rotation path: full, yaw only, upper half, partial or steady spin." }),
     pathSeconds: number("Rotation length", 10, 600),
     noiseMicrotesla: number("Noise", 0, 5),
     hardIronOffset: vec3("Hard-iron offset", 600),
@@ -102,10 +103,29 @@ export const scenarioSpecSchema = z
       })
       .nullable(),
     steel: z.object({ distanceM: number("Distance to steel", 0.2, 20) }).nullable(),
+    glitchBurst: z
+      .object({
+        kind: z.enum(GLITCH_BURST_KINDS, { error: "Glitch burst kind: choose a magnet carried past (magnet) or a stuck reading (stuck)." }),
+        startS: number("Glitch burst start", 0, Number.MAX_SAFE_INTEGER),
+        durationS: number("Glitch burst length", GLITCH_BURST_LIMITS.durationS.min, GLITCH_BURST_LIMITS.durationS.max),
+        fieldMultiple: number("Glitch burst size", GLITCH_BURST_LIMITS.fieldMultiple.min, GLITCH_BURST_LIMITS.fieldMultiple.max),
+      })
+      // Absent in scenarios saved before glitch bursts existed.
+      .nullish(),
   })
   .refine((spec) => scenarioSeconds(spec) * spec.sampleRateHz <= MAX_SCENARIO_SAMPLES, {
     path: ["sampleRateHz"],
     message: `The capture would be longer than ${MAX_SCENARIO_SAMPLES.toLocaleString("en-GB")} samples: lower the sample rate or shorten the rotation.`,
+  })
+  .superRefine((spec, context) => {
+    const burst = spec.glitchBurst;
+    const seconds = scenarioSeconds(spec);
+    if (burst && burst.startS + burst.durationS > seconds)
+      context.addIssue({
+        code: "custom",
+        path: ["glitchBurst", "startS"],
+        message: `Glitch burst start: the burst must end within the capture's ${seconds} s, so start it earlier or make it shorter.`,
+      });
   }) satisfies z.ZodType<ScenarioSpec>;
 
 const scenarioFields = {

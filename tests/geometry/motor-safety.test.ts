@@ -70,7 +70,8 @@ describe("the motor-run caution", () => {
       "a strong motor-current coupling",
       { holds: { faces: ["+z"] }, magnetometers: [{ currentCoupling: [0.3, 0.1, -0.25] }], currentTest: { maxAmps: 40 } },
     ],
-    ["a large offset with no motor run at all", { magnetometers: [{ hardIronOffset: [60, -40, 55] }] }],
+    // Large enough that less than half of the assumed ±800 µT range is left, so the hard-iron check speaks.
+    ["a large offset with no motor run at all", { magnetometers: [{ hardIronOffset: [450, -300, 200] }] }],
   ] as [string, CaptureSpec][])("%s: every remedy and diagnosis that mentions a motor test carries it", (_label, spec) => {
     const analysis = analyse(spec);
     const advice = [

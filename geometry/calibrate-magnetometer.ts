@@ -17,6 +17,7 @@
  * Units: whatever the field is given in (µT after unit conversion); every length-like
  * output is in the same units.
  */
+import { ASYMPTOTIC_INTERVAL_MIN_SAMPLES, asymptoticIntervals } from "./asymptotic-intervals";
 import { bootstrapIntervals } from "./bootstrap";
 import { clearRuns, describeRuns, findRejectedRuns, prescreenFarSamples } from "./burst-rejection";
 import { MODEL_PARAMETER_COUNT, ellipsoidScales, fitEllipsoidAlgebraic } from "./ellipsoid-fit";
@@ -161,7 +162,17 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
   let offsetInterval95: [Interval95, Interval95, Interval95];
   let scaleInterval95: [Interval95, Interval95, Interval95];
   let bootstrapResamples = 0;
-  if (options.bootstrap ?? true) {
+  let intervalMethod: MagnetometerCalibration["intervalMethod"] = "none";
+  const sandwich =
+    (options.bootstrap ?? true) && options.intervals !== "bootstrap" && samples >= ASYMPTOTIC_INTERVAL_MIN_SAMPLES
+      ? asymptoticIntervals(field, estimate, inliers)
+      : null;
+  if (sandwich) {
+    offsetInterval95 = sandwich.offsetInterval95;
+    scaleInterval95 = sandwich.scaleInterval95;
+    intervalMethod = "sandwich";
+  } else if (options.bootstrap ?? true) {
+    intervalMethod = "bootstrap";
     const boot = bootstrapIntervals(
       field,
       estimate.model,
@@ -200,6 +211,7 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
     offsetInterval95,
     scaleInterval95,
     bootstrapResamples,
+    intervalMethod,
     candidates: chosen.choice.candidates.map(toCandidate),
     saturation: analyseSaturation(field, usable),
     coverage: coverageOf(field, estimate, inliers, options),

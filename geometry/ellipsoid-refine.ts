@@ -105,7 +105,7 @@ function loadShape(model: MagModel, p: Float64Array): void {
 }
 
 /** Columns of the full Jacobian that each parameter of a model moves. */
-const MODEL_COLUMNS: Record<MagModel, number[][]> = {
+export const MODEL_COLUMNS: Record<MagModel, number[][]> = {
   sphere: [[0], [1], [2], [3, 4, 5]],
   axis: [[0], [1], [2], [3], [4], [5]],
   full: [[0], [1], [2], [3], [4], [5], [6], [7], [8]],
@@ -314,7 +314,11 @@ function polish(
   return { p, cost: current.cost, count: current.count, iterations, converged: false };
 }
 
-function toParameters(estimate: EllipsoidEstimate, norm: Normalisation): Float64Array {
+/**
+ * The refinement's parameters of an estimate in normalised coordinates (offset from
+ * norm.centre over norm.scale, then M's free entries); asymptotic-intervals.ts reads them too.
+ */
+export function toParameters(estimate: EllipsoidEstimate, norm: Normalisation): Float64Array {
   const p = new Float64Array(PARAMETERS[estimate.model]);
   const b = sub(estimate.hardIronOffset, norm.centre);
   p[0] = b[0] / norm.scale;
@@ -337,7 +341,8 @@ function toParameters(estimate: EllipsoidEstimate, norm: Normalisation): Float64
   return p;
 }
 
-function fromParameters(model: MagModel, p: Float64Array, norm: Normalisation): EllipsoidEstimate | null {
+/** The estimate for parameters p (the inverse of toParameters); null when M is not positive definite. */
+export function fromParameters(model: MagModel, p: Float64Array, norm: Normalisation): EllipsoidEstimate | null {
   loadShape(model, p);
   const [m00, m11, m22, m12, m02, m01] = shape;
   const m: Mat3 = [

@@ -108,8 +108,14 @@ export interface MagnetometerCalibration {
   nonFiniteSkipped: number;
   offsetInterval95: [Interval95, Interval95, Interval95];
   scaleInterval95: [Interval95, Interval95, Interval95];
-  /** Bootstrap resamples behind the intervals (0 when the bootstrap was turned off: intervals collapse to the estimate). */
+  /** Bootstrap resamples behind the intervals (0 when they came from the sandwich covariance, or were turned off). */
   bootstrapResamples: number;
+  /**
+   * Where the 95% intervals come from: "bootstrap" (refits of resamples, bootstrap.ts),
+   * "sandwich" (the asymptotic covariance of a long capture, asymptotic-intervals.ts) or
+   * "none" (turned off: intervals collapse to the estimate).
+   */
+  intervalMethod: "bootstrap" | "sandwich" | "none";
   candidates: MagModelCandidate[];
   saturation: SaturationReport;
   coverage: CoverageResult;
@@ -148,8 +154,13 @@ export interface CalibrateMagnetometerOptions {
   seed?: number;
   /** Samples a cell needs to count as covered; default 3. */
   minSamplesPerCell?: number;
-  /** Run the bootstrap for the 95% intervals; default true. */
+  /** Compute 95% intervals (bootstrap, or the sandwich covariance for a long capture); default true. */
   bootstrap?: boolean;
+  /**
+   * "auto" (default): the sandwich covariance from ASYMPTOTIC_INTERVAL_MIN_SAMPLES kept samples
+   * on, the bootstrap below; "bootstrap": always the bootstrap (the reference it is checked against).
+   */
+  intervals?: "auto" | "bootstrap";
   /** Site inclination (dip) in degrees, positive down, used only to word the next orientation; default 60. */
   inclinationDeg?: number;
   /**

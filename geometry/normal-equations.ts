@@ -258,7 +258,7 @@ export function sumRadialCost(
 
 /**
  * Cost, gradient Jᵀr (into `jtr`, 9) and, when `jtj` (81, row-major) is given, curvature JᵀJ
- * of the radial residual for the full model, parameters ordered b0 b1 b2 m00 m11 m22 m12 m02
+ * (or, with `weightByResidual`, Σ r²·j·jᵀ, the middle of the sandwich covariance) of the radial residual for the full model, parameters ordered b0 b1 b2 m00 m11 m22 m12 m02
  * m01. Jacobian: ∂r/∂b = −M n, ∂r/∂M_kl = n_k d_l + n_l d_k, d = u − b, n = M d / |M d|. Every sum lives in a local (the 45 of the upper triangle of JᵀJ written out)
  * because this is the innermost loop of the fit and of every bootstrap refit; locals stay in
  * registers where typed-array updates would not. Allocation-free.
@@ -271,6 +271,7 @@ export function sumRadialNormalEquations(
   selection: SampleSelection,
   jtr: Float64Array,
   jtj: Float64Array | null,
+  weightByResidual = false,
 ): RadialSums {
   const withCurvature = jtj !== null;
   // Read once: an imported binding can be a getter call per access in some module formats.
@@ -316,15 +317,15 @@ export function sumRadialNormalEquations(
     const n0 = v0 / rho;
     const n1 = v1 / rho;
     const n2 = v2 / rho;
-    const j0 = -(m00 * n0 + m01 * n1 + m02 * n2);
-    const j1 = -(m01 * n0 + m11 * n1 + m12 * n2);
-    const j2 = -(m02 * n0 + m12 * n1 + m22 * n2);
-    const j3 = n0 * d0;
-    const j4 = n1 * d1;
-    const j5 = n2 * d2;
-    const j6 = n1 * d2 + n2 * d1;
-    const j7 = n0 * d2 + n2 * d0;
-    const j8 = n0 * d1 + n1 * d0;
+    let j0 = -(m00 * n0 + m01 * n1 + m02 * n2);
+    let j1 = -(m01 * n0 + m11 * n1 + m12 * n2);
+    let j2 = -(m02 * n0 + m12 * n1 + m22 * n2);
+    let j3 = n0 * d0;
+    let j4 = n1 * d1;
+    let j5 = n2 * d2;
+    let j6 = n1 * d2 + n2 * d1;
+    let j7 = n0 * d2 + n2 * d0;
+    let j8 = n0 * d1 + n1 * d0;
     g0 += j0 * r;
     g1 += j1 * r;
     g2 += j2 * r;
@@ -335,6 +336,18 @@ export function sumRadialNormalEquations(
     g7 += j7 * r;
     g8 += j8 * r;
     if (!withCurvature) continue;
+    if (weightByResidual) {
+      // Σ (r·j)(r·j)ᵀ, the outer products of the per-sample gradients, instead of Σ j·jᵀ.
+      j0 *= r;
+      j1 *= r;
+      j2 *= r;
+      j3 *= r;
+      j4 *= r;
+      j5 *= r;
+      j6 *= r;
+      j7 *= r;
+      j8 *= r;
+    }
     // prettier-ignore
     {
       h00 += j0 * j0; h01 += j0 * j1; h02 += j0 * j2; h03 += j0 * j3; h04 += j0 * j4; h05 += j0 * j5; h06 += j0 * j6; h07 += j0 * j7; h08 += j0 * j8;

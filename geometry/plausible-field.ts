@@ -17,10 +17,10 @@ export const FIELD_BAND_YEARS = { from: 2025.0, to: 2030.0 } as const;
 export const FIELD_BAND_ALTITUDE_M = { lowest: -500, highest: 10_000 } as const;
 
 /** Spacing of the first grid, degrees; the field's smallest features span tens of degrees (engineering choice). */
-export const FIELD_BAND_COARSE_STEP_DEG = 5;
+export const FIELD_BAND_COARSE_STEP_DEG = 10;
 
-/** The refinement stops when its step is below this, degrees (about a kilometre; engineering choice). */
-export const FIELD_BAND_FINE_STEP_DEG = 0.01;
+/** The refinement stops when its step is below this, degrees (about ten kilometres; at an extreme the field is flat, so the strength found is within a few nT of the true one: engineering choice). */
+export const FIELD_BAND_FINE_STEP_DEG = 0.1;
 
 /** How many separate coarse candidates are refined for each extreme (engineering choice). */
 export const FIELD_BAND_CANDIDATES = 4;

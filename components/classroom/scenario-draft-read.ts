@@ -6,7 +6,7 @@
  * browser can compute in a few seconds at most. They are the server's own
  * (lib/validations/classroom.ts); a unit test holds the two to the same verdicts.
  */
-import type { ScenarioSpec } from "@/geometry/scenario";
+import { GLITCH_BURST_LIMITS, type ScenarioSpec } from "@/geometry/scenario";
 import { mountingRotationById } from "@/geometry/mounting-rotations";
 import type { Mat3, Vec3 } from "@/geometry/types";
 import type { ScenarioDraft, Triple } from "./scenario-draft";
@@ -37,6 +37,8 @@ export const SCENARIO_LIMITS = {
   wobbleDeg: { min: 0, max: 20, unit: "°" },
   tiltDeg: { min: 0, max: 30, unit: "°" },
   steelDistanceM: { min: 0.2, max: 20, unit: "m" },
+  glitchDurationS: { ...GLITCH_BURST_LIMITS.durationS, unit: "s" },
+  glitchFieldMultiple: { ...GLITCH_BURST_LIMITS.fieldMultiple, unit: "" },
   /** Samples of the whole capture (holds, rotation, motor run): more would slow every viewer's refit. */
   captureSamples: 60_000,
   /** Smallest determinant of a custom soft-iron matrix: below it the sphere is squashed almost flat. */
@@ -63,7 +65,10 @@ function readNumber(raw: string, range: Range, key: string, errors: FieldErrors)
   if (trimmed === "") errors[key] = "Give a number.";
   else if (!Number.isFinite(value)) errors[key] = `“${trimmed.slice(0, 20)}” is not a number.`;
   else if (range.integer && !Number.isInteger(value)) errors[key] = "Give a whole number.";
-  else if (value < range.min || value > range.max) errors[key] = `Give a value between ${rangeText(range)}.`;
+  else if (value < range.min || value > range.max)
+    errors[key] = Number.isFinite(range.max)
+      ? `Give a value between ${rangeText(range)}.`
+      : `Give a value of ${range.min} ${range.unit} or more.`;
   return value;
 }
 
@@ -127,6 +132,22 @@ export function isCalendarDate(value: string): boolean {
   return !Number.isNaN(date.getTime()) && date.toISOString().slice(0, 10) === value;
 }
 
+/** The glitch burst's fields; it must end by the end of the capture (`seconds` long, NaN if unknown yet). */
+function readGlitchBurst(draft: ScenarioDraft, seconds: number, errors: FieldErrors): NonNullable<ScenarioSpec["glitchBurst"]> {
+  const { kind, startS: rawStart, durationS: rawDuration, fieldMultiple: rawMultiple } = draft.glitchBurst;
+  const durationS = readNumber(rawDuration, SCENARIO_LIMITS.glitchDurationS, "spec.glitchBurst.durationS", errors);
+  const fieldMultiple = readNumber(rawMultiple, SCENARIO_LIMITS.glitchFieldMultiple, "spec.glitchBurst.fieldMultiple", errors);
+  const startS = readNumber(rawStart, { min: 0, max: Number.POSITIVE_INFINITY, unit: "s" }, "spec.glitchBurst.startS", errors);
+  if (
+    Number.isFinite(seconds) &&
+    !errors["spec.glitchBurst.startS"] &&
+    !errors["spec.glitchBurst.durationS"] &&
+    startS + durationS > seconds
+  )
+    errors["spec.glitchBurst.startS"] = `The burst must end by the end of the ${seconds} s capture: start it earlier or make it shorter.`;
+  return { kind, startS, durationS, fieldMultiple };
+}
+
 /**
  * The spec the form describes, or null with a message per bad field. Only the spec's own
  * fields are read here (the preview needs nothing else); `readScenarioBody` adds the name,
@@ -185,6 +206,7 @@ export function readScenarioSpec(draft: ScenarioDraft): { spec: ScenarioSpec | n
     };
   }
   const steel = draft.steel.on ? { distanceM: readNumber(draft.steel.distanceM, L.steelDistanceM, "spec.steel.distanceM", errors) } : null;
+  const glitchBurst = draft.glitchBurst.on ? readGlitchBurst(draft, captureSeconds({ pathSeconds, holds, currentCoupling }), errors) : null;
 
   if (!errors["spec.sampleRateHz"] && !errors["spec.pathSeconds"]) {
     const samples = Math.round(captureSeconds({ pathSeconds, holds, currentCoupling }) * sampleRateHz);
@@ -210,6 +232,7 @@ export function readScenarioSpec(draft: ScenarioDraft): { spec: ScenarioSpec | n
       clipLevelMicrotesla,
       holds,
       steel,
+      glitchBurst,
     },
     errors,
   };

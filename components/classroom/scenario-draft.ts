@@ -5,7 +5,7 @@
  * into a spec, with a message per bad field, is in scenario-draft-read.ts.
  */
 import { DEFAULT_SCENARIO, type ScenarioSpec } from "@/geometry/scenario";
-import type { BodyFace, SoftIronLevel } from "@/geometry/magnetometer-types";
+import type { BodyFace, GlitchBurstSpec, SoftIronLevel } from "@/geometry/magnetometer-types";
 import { SOFT_IRON_LEVELS } from "@/geometry/simulator";
 import type { Mat3, Vec3 } from "@/geometry/types";
 
@@ -32,6 +32,7 @@ export interface ScenarioDraft {
   clip: { on: boolean; levelMicrotesla: string };
   holds: { on: boolean; faces: BodyFace[]; wobbleDeg: string; tiltDeg: string };
   steel: { on: boolean; distanceM: string };
+  glitchBurst: { on: boolean; kind: GlitchBurstSpec["kind"]; startS: string; durationS: string; fieldMultiple: string };
 }
 
 /** The six faces in the order a person holds them: level, upside down, nose down, nose up, right side, left side. */
@@ -51,6 +52,15 @@ export const PATH_LABELS: Record<ScenarioSpec["path"], { label: string; hint: st
   "yaw-only": { label: "Yaw only", hint: "Spun flat on the ground: one ring of directions, the classic incomplete rotation." },
   "upper-half": { label: "Upper half only", hint: "Tilted every way but never turned over: half the sphere stays empty." },
   partial: { label: "Random partial", hint: "A few arbitrary turns that stop early: patchy coverage." },
+  "steady-spin": {
+    label: "Steady spin",
+    hint: "Turned slowly round at one steady rate on level ground: gravity never moves, but the vehicle is not still.",
+  },
+};
+
+export const GLITCH_KIND_LABELS: Record<GlitchBurstSpec["kind"], { label: string; hint: string }> = {
+  magnet: { label: "Something magnetic carried past", hint: "A phone, a magnet or a steel tool brought near the compass for a moment." },
+  stuck: { label: "Readings stuck at one value", hint: "The sensor repeats one reading, as a loose connector can make it." },
 };
 
 export const SOFT_IRON_LABELS: Record<SoftIronChoice, string> = {
@@ -71,6 +81,7 @@ const FAULT_STARTS = {
   clipLevelMicrotesla: 60,
   holds: { faces: ALL_FACES, wobbleDeg: 6, tiltDeg: 3 },
   steel: { distanceM: 1.2 },
+  glitchBurst: { kind: "magnet" as const, startS: 30, durationS: 1.5, fieldMultiple: 5 },
 };
 
 /** The form filled from a spec (a saved scenario, or the default one for a new scenario). */
@@ -83,6 +94,7 @@ export function draftFromScenario(
   const coupling = spec.currentCoupling ?? FAULT_STARTS.currentCoupling;
   const holds = spec.holds ?? FAULT_STARTS.holds;
   const steel = spec.steel ?? FAULT_STARTS.steel;
+  const burst = spec.glitchBurst ?? FAULT_STARTS.glitchBurst;
   return {
     name: details.name ?? "",
     description: details.description ?? "",
@@ -116,6 +128,13 @@ export function draftFromScenario(
     clip: { on: spec.clipLevelMicrotesla !== null, levelMicrotesla: text(spec.clipLevelMicrotesla ?? FAULT_STARTS.clipLevelMicrotesla) },
     holds: { on: spec.holds !== null, faces: [...holds.faces], wobbleDeg: text(holds.wobbleDeg), tiltDeg: text(holds.tiltDeg) },
     steel: { on: spec.steel !== null, distanceM: text(steel.distanceM) },
+    glitchBurst: {
+      on: spec.glitchBurst != null,
+      kind: burst.kind,
+      startS: text(burst.startS),
+      durationS: text(burst.durationS),
+      fieldMultiple: text(burst.fieldMultiple),
+    },
   };
 }
 
@@ -162,13 +181,15 @@ export function draftPart(draft: ScenarioDraft, key: string): string {
       return JSON.stringify(draft.holds);
     case "steel":
       return JSON.stringify(draft.steel);
+    case "glitchBurst":
+      return JSON.stringify(draft.glitchBurst);
     default:
       return JSON.stringify(draft);
   }
 }
 
 const SHOWN_FIELD =
-  /^(name|description|answer|spec\.(site\.(name|latitudeDeg|longitudeDeg|altitudeM)|date|seed|sampleRateHz|path|pathSeconds|noiseMicrotesla|hardIronOffset\.[0-2]|softIron(\.[0-2]\.[0-2])?|secondCompass\.(mountingRotation|declaredRotation|hardIronOffset\.[0-2])|currentCoupling\.(perAmpMicrotesla\.[0-2]|maxAmps)|clipLevelMicrotesla|holds\.(faces|wobbleDeg|tiltDeg)|steel\.distanceM))$/;
+  /^(name|description|answer|spec\.(site\.(name|latitudeDeg|longitudeDeg|altitudeM)|date|seed|sampleRateHz|path|pathSeconds|noiseMicrotesla|hardIronOffset\.[0-2]|softIron(\.[0-2]\.[0-2])?|secondCompass\.(mountingRotation|declaredRotation|hardIronOffset\.[0-2])|currentCoupling\.(perAmpMicrotesla\.[0-2]|maxAmps)|clipLevelMicrotesla|holds\.(faces|wobbleDeg|tiltDeg)|steel\.distanceM|glitchBurst\.(kind|startS|durationS|fieldMultiple)))$/;
 
 /**
  * A field name as the form shows it: a soft-iron entry below the diagonal is shown on its

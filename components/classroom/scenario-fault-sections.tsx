@@ -5,6 +5,7 @@ import { DEFAULT_MAGNETOMETER_RANGE_UT } from "@/geometry/magnetometer-range";
 import { SafetyCautions } from "@/components/run/safety-cautions";
 import { ALL_FACES, FACE_LABELS } from "./scenario-draft";
 import { fieldId, FaultSection, NumberBox, TripleBox } from "./scenario-fields";
+import { GlitchBurstSection } from "./scenario-burst-section";
 import type { SectionProps } from "./scenario-sections";
 
 const MOUNTING_OPTIONS = MOUNTING_ROTATIONS.map((r) => ({ id: r.id, words: r.words }));
@@ -59,7 +60,7 @@ function RotationSelect({
   );
 }
 
-/** The optional faults: a second compass, current in nearby wiring, saturation, shaky holds, steel nearby. */
+/** The optional faults: a second compass, current in nearby wiring, saturation, shaky holds, steel nearby, a glitch burst. */
 export function FaultSections({
   draft,
   update,
@@ -228,6 +229,8 @@ export function FaultSections({
           error={errors["spec.steel.distanceM"]}
         />
       </FaultSection>
+
+      <GlitchBurstSection draft={draft} update={update} errors={errors} />
     </div>
   );
 }

@@ -31,5 +31,9 @@ export function scenarioFaultWords(spec: ScenarioSpec): string[] {
   if (spec.holds)
     words.push(`${spec.holds.faces.length} hold${spec.holds.faces.length === 1 ? "" : "s"}, wobble ${whole(spec.holds.wobbleDeg)}°`);
   if (spec.steel) words.push(`steel at ${whole(spec.steel.distanceM)} m`);
+  if (spec.glitchBurst)
+    words.push(
+      `${spec.glitchBurst.kind === "stuck" ? "stuck compass" : "magnet carried past"} for ${whole(spec.glitchBurst.durationS)} s at ${whole(spec.glitchBurst.startS)} s`,
+    );
   return words;
 }

@@ -101,18 +101,36 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
     spec: { ...BASE, holds: { ...SIX_FACES!, tiltDeg: 30 } },
     lesson: { verdict: "fail", checks: ["accel.tilt", "accel.trim"] },
   },
+  {
+    name: "A phone carried past",
+    description:
+      "A good tumble, but partway through someone walks up with a phone in hand and holds it near the vehicle for a moment. Watch the compass readings.",
+    answer:
+      "A passing disturbance: for about a second and a half the phone was close enough to the compass to push its readings far off the sphere. The fit leaves that stretch out and says so in its explanation, giving when it began and how long it lasted, so the calibration is still sound. Read the fit's explanation to find the stretch. Keep phones, tools and magnets away from the vehicle while it is turned, and redo the capture if the stretch left out is long or comes back.",
+    spec: { ...BASE, glitchBurst: { kind: "magnet", startS: 52, durationS: 1.5, fieldMultiple: 4 } },
+    lesson: { verdict: "pass", checks: [] },
+  },
+  {
+    name: "Turned steadily on the ground",
+    description:
+      "Six accelerometer holds, then the vehicle is turned slowly and steadily round on level ground, with the compass, accelerometer and gyroscope all logged. Watch the gyroscope bias.",
+    answer:
+      "Two lessons. A steady turn on the ground is not a compass calibration: the readings trace one ring, so most of the sphere stays empty; tumble the vehicle through every orientation instead. And a steady turn is not a still period: the accelerometer reads the same all through it, because gravity does not move, but the compass heading turns, so the gyroscope's steady reading there is the turn and not a bias. The bias is taken from the six holds alone, where it is tiny. Measure gyroscope bias only with the vehicle left untouched for a few seconds.",
+    spec: { ...BASE, path: "steady-spin", holds: SIX_FACES },
+    lesson: { verdict: "fail", checks: ["mag.coverage", "mag.gap"] },
+  },
 ];
 
 /**
- * Add the ready-made scenarios to each demo workspace that has none yet, made by its first
- * instructor (else its owner). Idempotent; a user's scenario of the same name is left alone.
+ * Add to each demo workspace the ready-made scenarios it lacks by name, made by its first
+ * instructor (else its owner), so a workspace seeded before a scenario was added gets it on
+ * the next seed. Idempotent: a scenario of the same name (ready-made or a user's) is left alone.
  */
 export async function seedDemoScenarios(log: (line: string) => void = () => {}): Promise<void> {
   const { models } = db();
   for (const demo of DEMO_WORKSPACES) {
     const workspace = await models.Workspace.findOne({ where: { slug: demo.slug } });
     if (!workspace) continue;
-    if ((await models.Scenario.count({ where: { workspaceId: workspace.id, readyMade: true } })) > 0) continue;
     const teacher =
       DEMO_PEOPLE.find((p) => p.memberships.some((m) => m.workspace === demo.slug && m.role === "instructor")) ??
       DEMO_PEOPLE.find((p) => p.memberships.some((m) => m.workspace === demo.slug && m.role === "owner"));

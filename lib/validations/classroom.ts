@@ -106,7 +106,10 @@ export const scenarioSpecSchema = z
     glitchBurst: z
       .object({
         kind: z.enum(GLITCH_BURST_KINDS, { error: "Glitch burst kind: choose a magnet carried past (magnet) or a stuck reading (stuck)." }),
-        startS: number("Glitch burst start", 0, Number.MAX_SAFE_INTEGER),
+        startS: z
+          .number({ error: "Glitch burst start must be a number." })
+          .refine((v) => Number.isFinite(v), "Glitch burst start must be a number.")
+          .refine((v) => v >= 0, "Glitch burst start must be 0 s or later."),
         durationS: number("Glitch burst length", GLITCH_BURST_LIMITS.durationS.min, GLITCH_BURST_LIMITS.durationS.max),
         fieldMultiple: number("Glitch burst size", GLITCH_BURST_LIMITS.fieldMultiple.min, GLITCH_BURST_LIMITS.fieldMultiple.max),
       })

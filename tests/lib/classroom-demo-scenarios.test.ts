@@ -2,6 +2,7 @@ import { describe, expect, test } from "vitest";
 import { liveSnapshot } from "@/geometry/live-snapshot";
 import { scenarioCaptureSpec, scenarioMagnetometerRanges } from "@/geometry/scenario";
 import { simulateCapture } from "@/geometry/simulator";
+import { STEADY_SPIN_RATE_DEG_PER_S } from "@/geometry/simulator-paths";
 import { SCENARIO_UNITS } from "@/lib/classroom/snapshot-cache";
 import { DEMO_SCENARIOS } from "@/lib/seed/demo-scenarios";
 import { scenarioSpecSchema } from "@/lib/validations/classroom";
@@ -36,6 +37,29 @@ describe("DEMO_SCENARIOS", () => {
     const sound = DEMO_SCENARIOS.find((s) => s.lesson.verdict === "pass")!;
     expect(endOf(sound.spec, 0.25).verdict).toBe("fail");
     expect(endOf(sound.spec).verdict).toBe("pass");
+  });
+
+  test("a scenario with a glitch burst: the fit's explanation names the stretch it left out", () => {
+    const withBurst = DEMO_SCENARIOS.filter((s) => s.spec.glitchBurst);
+    expect(withBurst.length).toBeGreaterThan(0);
+    for (const scenario of withBurst) {
+      const burst = scenario.spec.glitchBurst!;
+      const fit = endOf(scenario.spec).checks.find((c) => c.id === "mag.fit" && c.sensor === "compass_a");
+      expect(fit?.explanation).toContain(`${burst.durationS.toFixed(1)} s of readings`);
+      expect(fit?.explanation).toContain(`from ${burst.startS.toFixed(1)} s`);
+    }
+  });
+
+  test("a scenario turned steadily: the gyroscope bias is not taken from the turn", () => {
+    const spinning = DEMO_SCENARIOS.filter((s) => s.spec.path === "steady-spin");
+    expect(spinning.length).toBeGreaterThan(0);
+    for (const scenario of spinning) {
+      const bias = endOf(scenario.spec).checks.find((c) => c.id === "gyro.bias");
+      // Taken from the turn, the bias would read about the spin rate (8 °/s); the simulated gyro has none.
+      if (bias?.status !== "skipped") expect(Number(bias?.measured)).toBeLessThan(STEADY_SPIN_RATE_DEG_PER_S / 10);
+      expect(bias?.status).not.toBe("fail");
+      expect(bias?.status).not.toBe("warn");
+    }
   });
 
   test("every scenario that runs motors says how to stay safe in its answer", () => {

@@ -19,6 +19,7 @@ const EVERY_FAULT: ScenarioSpec = {
   clipLevelMicrotesla: 55,
   holds: { faces: ["+z", "-z", "+x"], wobbleDeg: 5, tiltDeg: 2 },
   steel: { distanceM: 0.8 },
+  glitchBurst: { kind: "stuck", startS: 100, durationS: 2, fieldMultiple: 6 },
 };
 
 function edit(change: (d: ScenarioDraft) => void, spec: ScenarioSpec = DEFAULT_SCENARIO): ScenarioDraft {
@@ -32,6 +33,11 @@ describe("draftFromScenario and readScenarioSpec", () => {
     ["the default scenario", DEFAULT_SCENARIO],
     ["every fault switched on", EVERY_FAULT],
     ["a named soft-iron level", { ...DEFAULT_SCENARIO, softIron: "strong" as const }],
+    ["a steady spin", { ...DEFAULT_SCENARIO, path: "steady-spin" as const }],
+    [
+      "a magnet carried past",
+      { ...DEFAULT_SCENARIO, glitchBurst: { kind: "magnet" as const, startS: 12.5, durationS: 0.4, fieldMultiple: 3 } },
+    ],
   ])("round trip: %s", (_label, spec) => {
     expect(readScenarioSpec(draftFromScenario(spec))).toEqual({ spec, errors: {} });
   });
@@ -49,10 +55,17 @@ describe("draftFromScenario and readScenarioSpec", () => {
 
   test("switching a fault on for the first time starts from sensible values that read without errors", () => {
     const draft = draftFromScenario(DEFAULT_SCENARIO);
-    draft.secondCompass.on = draft.currentCoupling.on = draft.clip.on = draft.holds.on = draft.steel.on = true;
+    draft.secondCompass.on = draft.currentCoupling.on = draft.clip.on = draft.holds.on = draft.steel.on = draft.glitchBurst.on = true;
     draft.softIron = "custom";
     expect(readScenarioSpec(draft).errors).toEqual({});
   });
+});
+
+test("a scenario saved before glitch bursts existed opens with the burst off and saves it as none", () => {
+  const { glitchBurst: _, ...saved } = DEFAULT_SCENARIO;
+  const draft = draftFromScenario(saved);
+  expect(draft.glitchBurst.on).toBe(false);
+  expect(readScenarioSpec(draft).spec?.glitchBurst).toBeNull();
 });
 
 describe("readScenarioSpec: one message per bad field, under the API's field names", () => {
@@ -120,6 +133,30 @@ describe("readScenarioSpec: one message per bad field, under the API's field nam
     ["holds with no face", (d: ScenarioDraft) => ((d.holds.on = true), (d.holds.faces = [])), "spec.holds.faces", /at least one face/],
     ["a violent wobble", (d: ScenarioDraft) => ((d.holds.on = true), (d.holds.wobbleDeg = "45")), "spec.holds.wobbleDeg", /and 20°/],
     ["steel touching the vehicle", (d: ScenarioDraft) => ((d.steel.on = true), (d.steel.distanceM = "0")), "spec.steel.distanceM", /0.2 m/],
+    [
+      "a burst before the capture starts",
+      (d: ScenarioDraft) => ((d.glitchBurst.on = true), (d.glitchBurst.startS = "-2")),
+      "spec.glitchBurst.startS",
+      /0 s or more/,
+    ],
+    [
+      "a burst too brief",
+      (d: ScenarioDraft) => ((d.glitchBurst.on = true), (d.glitchBurst.durationS = "0.05")),
+      "spec.glitchBurst.durationS",
+      /between 0.1 s and 10 s/,
+    ],
+    [
+      "a burst too faint to leave the sphere",
+      (d: ScenarioDraft) => ((d.glitchBurst.on = true), (d.glitchBurst.fieldMultiple = "1")),
+      "spec.glitchBurst.fieldMultiple",
+      /between 1.5 and 20/,
+    ],
+    [
+      "a burst running past the end of the default 90 s capture",
+      (d: ScenarioDraft) => ((d.glitchBurst.on = true), (d.glitchBurst.startS = "89"), (d.glitchBurst.durationS = "2")),
+      "spec.glitchBurst.startS",
+      /end of the 90 s capture/,
+    ],
   ])("%s", (_label, change, key, message) => {
     const { spec, errors } = readScenarioSpec(edit(change));
     expect(spec).toBeNull();
@@ -246,6 +283,7 @@ describe("shownFieldKey", () => {
     ["the whole soft-iron matrix", "spec.softIron", "spec.softIron"],
     ["the whole spec", "spec", null],
     ["a field the form does not have", "spec.steel.strength", null],
+    ["the glitch burst's start", "spec.glitchBurst.startS", "spec.glitchBurst.startS"],
   ])("%s", (_label, key, expected) => {
     expect(shownFieldKey(key)).toBe(expected);
   });
@@ -331,6 +369,16 @@ describe("readScenarioSpec agrees with the server's schema (lib/validations/clas
     ["steel closest", at({ steel: { distanceM: 0.2 } })],
     ["steel too close", at({ steel: { distanceM: 0.19 } })],
     ["altitude too high", at({ site: { ...EVERY_FAULT.site, altitudeM: 9001 } })],
+    ["a steady spin", at({ path: "steady-spin" })],
+    // EVERY_FAULT lasts 90 s + 3 holds of 7 s + a 23 s motor run = 134 s.
+    ["burst ending with the capture", at({ glitchBurst: { kind: "magnet", startS: 124, durationS: 10, fieldMultiple: 20 } })],
+    ["burst ending after the capture", at({ glitchBurst: { kind: "magnet", startS: 124.1, durationS: 10, fieldMultiple: 20 } })],
+    ["shortest burst at the start", at({ glitchBurst: { kind: "stuck", startS: 0, durationS: 0.1, fieldMultiple: 1.5 } })],
+    ["burst before the start", at({ glitchBurst: { kind: "stuck", startS: -0.1, durationS: 1, fieldMultiple: 4 } })],
+    ["burst too brief", at({ glitchBurst: { kind: "stuck", startS: 5, durationS: 0.09, fieldMultiple: 4 } })],
+    ["burst too long", at({ glitchBurst: { kind: "stuck", startS: 5, durationS: 10.1, fieldMultiple: 4 } })],
+    ["burst too small", at({ glitchBurst: { kind: "magnet", startS: 5, durationS: 1, fieldMultiple: 1.4 } })],
+    ["burst too large", at({ glitchBurst: { kind: "magnet", startS: 5, durationS: 1, fieldMultiple: 20.1 } })],
   ])("%s", (_label, spec) => {
     const server = scenarioSpecSchema.safeParse(spec).success;
     const client = readScenarioSpec(draftFromScenario(spec)).spec !== null;

@@ -39,6 +39,17 @@ describe("scenarioFaultWords", () => {
     ["saturation", { clipLevelMicrotesla: 55 }, "clips at ±55 µT"],
     ["shaky holds", { holds: { faces: ["+z" as const], wobbleDeg: 6, tiltDeg: 0 } }, "1 hold, wobble 6.0°"],
     ["steel", { steel: { distanceM: 1.2 } }, "steel at 1.2 m"],
+    ["a steady spin", { path: "steady-spin" as const }, "Steady spin, 90 s"],
+    [
+      "a magnet carried past",
+      { glitchBurst: { kind: "magnet" as const, startS: 52, durationS: 1.5, fieldMultiple: 4 } },
+      "magnet carried past for 1.5 s at 52 s",
+    ],
+    [
+      "a stuck compass",
+      { glitchBurst: { kind: "stuck" as const, startS: 8, durationS: 3, fieldMultiple: 4 } },
+      "stuck compass for 3.0 s at 8.0 s",
+    ],
     ["a noisy sensor", { noiseMicrotesla: 2.5 }, "noise 2.5 µT"],
     [
       "custom soft iron",

@@ -20,6 +20,11 @@ describe("scenarioSpecSchema", () => {
     expect(firstIssue(scenarioSpecSchema, DEFAULT_SCENARIO)).toBeNull();
   });
 
+  test("a scenario saved before glitch bursts existed (no glitchBurst at all) is still valid", () => {
+    const { glitchBurst: _, ...saved } = DEFAULT_SCENARIO;
+    expect(firstIssue(scenarioSpecSchema, saved)).toBeNull();
+  });
+
   test.each([
     [
       "a custom soft-iron matrix near the identity",
@@ -37,6 +42,22 @@ describe("scenarioSpecSchema", () => {
     ],
     ["six holds with wobble", { holds: { faces: ["+z", "-z", "+x", "-x", "+y", "-y"], wobbleDeg: 3, tiltDeg: 0 } }],
     ["current coupling", { currentCoupling: { perAmpMicrotesla: [0.3, 0, -0.2], maxAmps: 30 } }],
+    ["a steady spin", { path: "steady-spin" }],
+    ["a magnet carried past", { glitchBurst: { kind: "magnet", startS: 40, durationS: 1.5, fieldMultiple: 4 } }],
+    // Limits from GLITCH_BURST_LIMITS (geometry/scenario.ts); the default capture is 90 s.
+    ["the shortest, smallest burst at the very start", { glitchBurst: { kind: "stuck", startS: 0, durationS: 0.1, fieldMultiple: 1.5 } }],
+    [
+      "the longest, largest burst ending with the capture",
+      { glitchBurst: { kind: "magnet", startS: 80, durationS: 10, fieldMultiple: 20 } },
+    ],
+    [
+      "a burst during the holds and motor run, which lengthen the capture to 90 + 7 + 23 s",
+      {
+        holds: { faces: ["+z"], wobbleDeg: 0, tiltDeg: 0 },
+        currentCoupling: { perAmpMicrotesla: [0.3, 0, -0.2], maxAmps: 30 },
+        glitchBurst: { kind: "magnet", startS: 118, durationS: 2, fieldMultiple: 4 },
+      },
+    ],
   ])("valid: %s", (_label, over) => {
     expect(firstIssue(scenarioSpecSchema, spec(over))).toBeNull();
   });
@@ -47,6 +68,43 @@ describe("scenarioSpecSchema", () => {
     ["a date outside the model's span", { date: "1999-01-01" }, "date", /2020 and 2035/],
     ["a fractional seed", { seed: 1.5 }, "seed", /whole number/],
     ["an unknown path", { path: "loop" }, "path", /rotation path/],
+    ["an unknown path: the choices include the steady spin", { path: "spin" }, "path", /steady spin/],
+    [
+      "an unknown burst kind",
+      { glitchBurst: { kind: "spark", startS: 10, durationS: 1, fieldMultiple: 4 } },
+      "glitchBurst.kind",
+      /Glitch burst kind/,
+    ],
+    [
+      "a burst before the capture",
+      { glitchBurst: { kind: "magnet", startS: -1, durationS: 1, fieldMultiple: 4 } },
+      "glitchBurst.startS",
+      /Glitch burst start must be 0 s or later/,
+    ],
+    [
+      "a burst too short",
+      { glitchBurst: { kind: "magnet", startS: 10, durationS: 0.05, fieldMultiple: 4 } },
+      "glitchBurst.durationS",
+      /Glitch burst length must be between 0\.1 and 10/,
+    ],
+    [
+      "a burst too long",
+      { glitchBurst: { kind: "magnet", startS: 10, durationS: 11, fieldMultiple: 4 } },
+      "glitchBurst.durationS",
+      /Glitch burst length/,
+    ],
+    [
+      "a burst too small to leave the sphere",
+      { glitchBurst: { kind: "magnet", startS: 10, durationS: 1, fieldMultiple: 1.2 } },
+      "glitchBurst.fieldMultiple",
+      /Glitch burst size must be between 1\.5 and 20/,
+    ],
+    [
+      "a burst running past the end of the 90 s capture",
+      { glitchBurst: { kind: "magnet", startS: 89, durationS: 2, fieldMultiple: 4 } },
+      "glitchBurst.startS",
+      /end within the capture's 90 s/,
+    ],
     ["a two-number offset", { hardIronOffset: [1, 2] }, "hardIronOffset", /three numbers/],
     ["an offset too large", { hardIronOffset: [1, 2, 900] }, "hardIronOffset.2", /between -600 and 600/],
     ["an unknown soft-iron level", { softIron: "medium" }, "softIron", /none, mild, strong/],

@@ -44,6 +44,12 @@ export interface RefineOptions {
   subsample?: boolean;
   /** A subsample of these same selected samples, already made (the caller's algebraic start used it). */
   spread?: SpreadSubsample;
+  /**
+   * False: on a long selection stop at the subsample's optimum, without the passes over every
+   * sample (its residual is the subsample's). For intermediate fits whose estimate only has to
+   * be good to a fraction of the noise, such as the rounds of outlier rejection. Default true.
+   */
+  polish?: boolean;
 }
 
 /**
@@ -380,10 +386,14 @@ export function refineEllipsoid(
     const coarse = iterate(spread.series, norm, initial.model, p, {}, maxIterations, 1e-3);
     p = coarse.p;
     iterations += coarse.iterations;
-    const polished = polish(spread, series, norm, initial.model, p, selection);
-    iterations += polished.iterations;
-    p = polished.p;
-    if (polished.converged) fine = polished;
+    if (options.polish === false) {
+      fine = coarse;
+    } else {
+      const polished = polish(spread, series, norm, initial.model, p, selection);
+      iterations += polished.iterations;
+      p = polished.p;
+      if (polished.converged) fine = polished;
+    }
   }
   // Without a subsample, or when polishing did not settle: LM on every sample, exact JᵀJ.
   if (!fine) {

@@ -9,7 +9,9 @@
  * a passing car, a bus glitch) sit far outside.
  */
 import { MODEL_PARAMETER_COUNT, radialResiduals } from "./ellipsoid-fit";
+import { LONG_CAPTURE_FACTOR } from "./ellipsoid-refine";
 import { fitMagModel, type ModelFit } from "./magnetometer-models";
+import { SPREAD_SUBSAMPLE_SIZE } from "./spread-subsample";
 import type { MagModel } from "./magnetometer-types";
 import type { Vec3Series } from "./types";
 import { EPSILON } from "./vector";
@@ -89,7 +91,10 @@ export function fitWithOutlierRejection(
   const inliers = Uint8Array.from(eligible);
   const residuals = new Float64Array(n);
   const scratch = new Float64Array(n);
-  let fitted = fitMagModel(series, model, { mask: inliers });
+  // Rounds stop at the spread subsample's optimum on a long capture (a few standard errors
+  // from the full one, far inside the noise the limit is drawn from); the last is polished.
+  const round = { polish: false };
+  let fitted = fitMagModel(series, model, { mask: inliers }, round);
   if (!fitted.ok) return fitted;
   let rounds = 1;
   while (rounds < maxRounds) {
@@ -112,10 +117,15 @@ export function fitWithOutlierRejection(
     }
     if (changed === 0) break;
     if (kept < MODEL_PARAMETER_COUNT[model] + 1) return { ok: false, detail: "outlier rejection left too few samples" };
-    const refitted = fitMagModel(series, model, { mask: inliers });
+    const refitted = fitMagModel(series, model, { mask: inliers }, round, fitted.fit.estimate);
     if (!refitted.ok) return refitted;
     fitted = refitted;
     rounds++;
+  }
+  if (n > LONG_CAPTURE_FACTOR * SPREAD_SUBSAMPLE_SIZE) {
+    const final = fitMagModel(series, model, { mask: inliers }, {}, fitted.fit.estimate);
+    if (!final.ok) return final;
+    fitted = final;
   }
   let eligibleCount = 0;
   let kept = 0;

@@ -48,7 +48,7 @@ describe("scenarioSpecSchema", () => {
     ["the shortest, smallest burst at the very start", { glitchBurst: { kind: "stuck", startS: 0, durationS: 0.1, fieldMultiple: 1.5 } }],
     [
       "the longest, largest burst ending with the capture",
-      { glitchBurst: { kind: "magnet", startS: 80, durationS: 10, fieldMultiple: 20 } },
+      { glitchBurst: { kind: "magnet", startS: 86, durationS: 4, fieldMultiple: 20 } },
     ],
     [
       "a burst during the holds and motor run, which lengthen the capture to 90 + 7 + 23 s",

@@ -1,8 +1,9 @@
 /**
  * Interval-width benchmark: are the 95% offset intervals as wide with the fast fit (a
  * well-spread subsample, then polishing on every sample; each bootstrap resample gathered
- * into contiguous buffers) as with the every-sample method (`{ subsample: false }`, resamples
- * refitted through indices)? Run alone with `npx tsx bench/interval-bench.ts`, or call
+ * into contiguous buffers; on a capture of ASYMPTOTIC_INTERVAL_MIN_SAMPLES or more the
+ * sandwich covariance instead of the bootstrap) as with the every-sample method
+ * (`{ subsample: false }`, 200 bootstrap resamples refitted through indices)? Run alone with `npx tsx bench/interval-bench.ts`, or call
  * `benchIntervalWidths()`.
  *
  * Captures: compass A of the demo fleet's simulated captures (the specs lib/seed/demo-fleet.ts
@@ -13,6 +14,7 @@
  * samples and bootstrap its intervals with the same seed.
  */
 import path from "node:path";
+import { ASYMPTOTIC_INTERVAL_MIN_SAMPLES, asymptoticIntervals } from "@/geometry/asymptotic-intervals";
 import { bootstrapIntervals } from "@/geometry/bootstrap";
 import { ellipsoidScales } from "@/geometry/ellipsoid-fit";
 import { chooseMagModel, fitMagModel } from "@/geometry/magnetometer-models";
@@ -90,7 +92,9 @@ export interface IntervalComparison {
   ratios: number[];
   /** Largest |fast − full| offset difference, as a fraction of that axis's interval width. */
   offsetShiftOfWidth: number;
-  /** Seconds for fit + bootstrap. */
+  /** Where the fast method's intervals came from. */
+  fastMethod: string;
+  /** Seconds for fit + intervals. */
   fullSeconds: number;
   fastSeconds: number;
 }
@@ -109,16 +113,21 @@ function compare(label: string, series: Vec3Series): IntervalComparison | string
     const fit = fitMagModel(series, model, { mask: inliers }, { subsample: fast });
     if (!fit.ok) throw new Error(`${label}: ${fit.detail}`);
     const e = fit.fit.estimate;
-    const boot = bootstrapIntervals(
-      series,
-      model,
-      inliers,
-      { offset: e.hardIronOffset, scales: ellipsoidScales(e.softIronMatrix), start: e },
-      { gather: fast },
-    );
+    // As calibrateMagnetometer chooses: the sandwich covariance for a long capture, else the bootstrap.
+    const sandwich = fast && fit.fit.samples >= ASYMPTOTIC_INTERVAL_MIN_SAMPLES ? asymptoticIntervals(series, e, inliers) : null;
+    const intervals =
+      sandwich ??
+      bootstrapIntervals(
+        series,
+        model,
+        inliers,
+        { offset: e.hardIronOffset, scales: ellipsoidScales(e.softIronMatrix), start: e },
+        { gather: fast },
+      );
     return {
       offset: e.hardIronOffset,
-      widths: boot.offsetInterval95.map((i) => i.high - i.low),
+      widths: intervals.offsetInterval95.map((i) => i.high - i.low),
+      method: sandwich ? "sandwich" : "bootstrap",
       seconds: (performance.now() - started) / 1000,
     };
   };
@@ -134,6 +143,7 @@ function compare(label: string, series: Vec3Series): IntervalComparison | string
     fastWidths: fast.widths,
     ratios: fast.widths.map((w, a) => w / full.widths[a]),
     offsetShiftOfWidth: Math.max(...fast.offset.map((v, a) => Math.abs(v - full.offset[a]) / full.widths[a])),
+    fastMethod: fast.method,
     fullSeconds: full.seconds,
     fastSeconds: fast.seconds,
   };
@@ -154,7 +164,7 @@ export function benchIntervalWidths(options: { longSamples?: number } = {}): Int
   ];
   process.stdout.write(`95% offset interval widths, every-sample method (full) against the fast one (node ${process.version}):\n`);
   process.stdout.write(
-    `${pad("capture", 22)} ${pad("samples", 10)} ${pad("model", 6)} ${pad("full widths µT", 20)} ${pad("fast widths µT", 20)} ${pad("fast/full", 20)} ${pad("shift/width", 11)} ${pad("full s", 7)} ${pad("fast s", 7)}\n`,
+    `${pad("capture", 22)} ${pad("samples", 10)} ${pad("model", 6)} ${pad("full widths µT", 20)} ${pad("fast widths µT", 20)} ${pad("fast/full", 20)} ${pad("shift/width", 11)} ${pad("full s", 7)} ${pad("fast s", 7)} fast intervals\n`,
   );
   const rows: IntervalComparison[] = [];
   for (const capture of captures) {
@@ -165,7 +175,7 @@ export function benchIntervalWidths(options: { longSamples?: number } = {}): Int
     }
     rows.push(row);
     process.stdout.write(
-      `${pad(row.label, 22)} ${pad(row.samples.toLocaleString("en-GB"), 10)} ${pad(row.model, 6)} ${pad(triple(row.fullWidths, 4), 20)} ${pad(triple(row.fastWidths, 4), 20)} ${pad(triple(row.ratios, 4), 20)} ${pad(row.offsetShiftOfWidth.toExponential(1), 11)} ${pad(row.fullSeconds.toFixed(3), 7)} ${pad(row.fastSeconds.toFixed(3), 7)}\n`,
+      `${pad(row.label, 22)} ${pad(row.samples.toLocaleString("en-GB"), 10)} ${pad(row.model, 6)} ${pad(triple(row.fullWidths, 4), 20)} ${pad(triple(row.fastWidths, 4), 20)} ${pad(triple(row.ratios, 4), 20)} ${pad(row.offsetShiftOfWidth.toExponential(1), 11)} ${pad(row.fullSeconds.toFixed(3), 7)} ${pad(row.fastSeconds.toFixed(3), 7)} ${row.fastMethod}\n`,
     );
   }
   return rows;

@@ -14,6 +14,10 @@
  * compiled code rather than of the JIT warming up.
  * Captures are a simulated 102 s recording at 100 Hz (six accelerometer holds, then a full
  * tumble; two compasses, one with mild soft iron), repeated end to end to the length wanted.
+ * Then: the 95% interval widths of the fast fit against the every-sample method
+ * (interval-bench.ts), `npm run fit` against a numpy script on a 1M-sample file (cli-bench.ts),
+ * the whole upload-to-result flow with the worker's peak memory (e2e-bench.ts) and a class
+ * session with 60 viewers (class-bench.ts).
  */
 import { spawnSync } from "node:child_process";
 import { createReadStream, existsSync, mkdirSync, statSync, writeFileSync } from "node:fs";
@@ -160,6 +164,13 @@ async function main(): Promise<void> {
       );
     }
   }
+  // Are the intervals as wide with the fast fit (and, on long captures, the sandwich covariance)?
+  const { benchIntervalWidths } = await import("./interval-bench");
+  process.stdout.write("\n");
+  benchIntervalWidths();
+  // The command line against a plain numpy script, whole processes.
+  const { benchCliAgainstNumpy } = await import("./cli-bench");
+  benchCliAgainstNumpy();
   // The product's whole flow, from upload to results, through storage, the queue and the worker.
   const { benchEndToEnd } = await import("./e2e-bench");
   await benchEndToEnd();

@@ -45,11 +45,13 @@ export interface RefineOptions {
   /** A subsample of these same selected samples, already made (the caller's algebraic start used it). */
   spread?: SpreadSubsample;
   /**
-   * False: on a long selection stop at the subsample's optimum, without the passes over every
-   * sample (its residual is the subsample's). For intermediate fits whose estimate only has to
-   * be good to a fraction of the noise, such as the rounds of outlier rejection. Default true.
+   * Most polishing steps on a long selection; default MAX_POLISH_STEPS. With 1 the one step
+   * from the subsample's optimum is taken and its cost predicted (the Gauss–Newton gain)
+   * without another pass: an estimate some tenths of a standard error from the full optimum,
+   * with a residual within a hundredth of a sample's squared residual of the optimum's —
+   * enough to compare models, for half the passes.
    */
-  polish?: boolean;
+  polishSteps?: number;
 }
 
 /**
@@ -284,6 +286,7 @@ function polish(
   model: MagModel,
   start: Float64Array,
   selection: SampleSelection,
+  maxSteps: number,
 ): IterationResult {
   loadShape(model, start);
   const sampled = sumRadialNormalEquations(spread.series, norm, start, shape, {}, jtr, jtj);
@@ -292,7 +295,7 @@ function polish(
   let p = start;
   let current = sumRadialNormalEquations(series, norm, p, shape, selection, jtr, null);
   let iterations = 0;
-  while (iterations < MAX_POLISH_STEPS) {
+  while (iterations < maxSteps) {
     iterations++;
     const step = dampedStep(model, 0);
     if (!step) break;
@@ -309,6 +312,11 @@ function polish(
       // The last step is taken without another pass: it is a tenth of a standard error at
       // most, and the cost it leaves is the one just summed less the Gauss–Newton gain
       // δᵀJᵀJδ (below a hundredth of one sample's squared residual).
+      return { p: trial, cost: Math.max(0, current.cost - predictedGain), count: current.count, iterations, converged: true };
+    }
+    // Asked for one step only: take it, its cost predicted as above (the step is larger, so
+    // the prediction is good to the quadratic model's accuracy, not to round-off).
+    if (maxSteps === 1) {
       return { p: trial, cost: Math.max(0, current.cost - predictedGain), count: current.count, iterations, converged: true };
     }
     loadShape(model, trial);
@@ -386,14 +394,10 @@ export function refineEllipsoid(
     const coarse = iterate(spread.series, norm, initial.model, p, {}, maxIterations, 1e-3);
     p = coarse.p;
     iterations += coarse.iterations;
-    if (options.polish === false) {
-      fine = coarse;
-    } else {
-      const polished = polish(spread, series, norm, initial.model, p, selection);
-      iterations += polished.iterations;
-      p = polished.p;
-      if (polished.converged) fine = polished;
-    }
+    const polished = polish(spread, series, norm, initial.model, p, selection, options.polishSteps ?? MAX_POLISH_STEPS);
+    iterations += polished.iterations;
+    p = polished.p;
+    if (polished.converged) fine = polished;
   }
   // Without a subsample, or when polishing did not settle: LM on every sample, exact JᵀJ.
   if (!fine) {

@@ -107,27 +107,41 @@ export function chooseMagModel(
 ): ModelChoiceResult {
   const candidates: ModelFit[] = [];
   const failures: string[] = [];
+  // On a long selection every model starts from the same spread subsample, and a model fitted
+  // here takes one polishing step (enough to compare scores); the one chosen is then polished.
+  const spread = longCaptureSubsample(series, selection);
+  const oneStep = new Set<ModelFit>();
   for (const model of MAG_MODELS) {
     const known = alreadyFitted.find((f) => f.estimate.model === model);
     if (known) {
       candidates.push(known);
       continue;
     }
-    const result = fitMagModel(series, model, selection);
-    if (result.ok) candidates.push(result.fit);
-    else failures.push(`${model}: ${result.detail}`);
+    const result = fitMagModel(series, model, selection, spread ? { spread, polishSteps: 1 } : {});
+    if (result.ok) {
+      candidates.push(result.fit);
+      if (spread) oneStep.add(result.fit);
+    } else failures.push(`${model}: ${result.detail}`);
   }
   if (candidates.length === 0) return { ok: false, detail: failures.join("; ") };
+  const settled = (fit: ModelFit): ModelFit => {
+    if (!oneStep.has(fit)) return fit;
+    const polished = fitMagModel(series, fit.estimate.model, selection, { spread: spread! }, fit.estimate);
+    if (!polished.ok) return fit;
+    candidates[candidates.indexOf(fit)] = polished.fit;
+    return polished.fit;
+  };
   const summary = candidates.map((c) => `${c.estimate.model} ${fmt(c.residualRms)}`).join(", ");
   if (choice !== "auto") {
-    const forced = candidates.find((c) => c.estimate.model === choice);
+    const found = candidates.find((c) => c.estimate.model === choice);
+    const forced = found ? settled(found) : undefined;
     if (!forced) return { ok: false, detail: failures.find((f) => f.startsWith(choice)) ?? `the ${choice} model could not be fitted` };
     return {
       ok: true,
       choice: { chosen: forced, candidates, reason: `The ${choice} model was requested. Residual RMS per model: ${summary}.` },
     };
   }
-  const best = candidates.reduce((a, b) => (b.score < a.score ? b : a));
+  const best = settled(candidates.reduce((a, b) => (b.score < a.score ? b : a)));
   const simpler = candidates.filter((c) => c.parameterCount < best.parameterCount);
   const bigger = candidates.filter((c) => c.parameterCount > best.parameterCount);
   let why: string;

@@ -8,10 +8,10 @@
  * Gaussian capture loses about one sample in two million, while spikes (a bumped sensor,
  * a passing car, a bus glitch) sit far outside.
  */
-import { MODEL_PARAMETER_COUNT, radialResiduals } from "./ellipsoid-fit";
-import { LONG_CAPTURE_FACTOR } from "./ellipsoid-refine";
+import { MODEL_PARAMETER_COUNT, radialResiduals, type EllipsoidEstimate } from "./ellipsoid-fit";
+import { longCaptureSubsample } from "./ellipsoid-refine";
 import { fitMagModel, type ModelFit } from "./magnetometer-models";
-import { SPREAD_SUBSAMPLE_SIZE } from "./spread-subsample";
+import type { SpreadSubsample } from "./spread-subsample";
 import type { MagModel } from "./magnetometer-types";
 import type { Vec3Series } from "./types";
 import { EPSILON } from "./vector";
@@ -76,8 +76,40 @@ export function medianInPlace(values: Float64Array, count: number): number {
 }
 
 /**
+ * Residuals the median and spread are taken from, at most: on a longer capture every k-th
+ * eligible sample, which puts the limit within a fraction of a percent of the all-sample one.
+ * Engineering choice.
+ */
+export const SPREAD_ESTIMATE_SAMPLES = 200_000;
+
+/** The spread subsample restricted to the samples still kept: what the rounds and the last fit iterate on. */
+function keptPart(spread: SpreadSubsample, inliers: Uint8Array): SpreadSubsample {
+  let count = 0;
+  for (let k = 0; k < spread.indices.length; k++) count += inliers[spread.indices[k]];
+  const indices = new Int32Array(count);
+  const part: Vec3Series = { x: new Float64Array(count), y: new Float64Array(count), z: new Float64Array(count) };
+  let j = 0;
+  for (let k = 0; k < spread.indices.length; k++) {
+    if (inliers[spread.indices[k]] === 0) continue;
+    indices[j] = spread.indices[k];
+    part.x[j] = spread.series.x[k];
+    part.y[j] = spread.series.y[k];
+    part.z[j] = spread.series.z[k];
+    j++;
+  }
+  let kept = 0;
+  for (let i = 0; i < inliers.length; i++) kept += inliers[i];
+  return { series: part, indices, selectedCount: kept };
+}
+
+/**
  * Fit `model` to the samples allowed by `eligible` (1 = usable), rejecting outliers by the
  * radial residual. Units: the input's.
+ *
+ * On a long capture (ellipsoid-refine.ts: LONG_CAPTURE_FACTOR × SPREAD_SUBSAMPLE_SIZE samples)
+ * the rounds fit the well-spread subsample's kept part — an estimate a few standard errors
+ * from the all-sample one, far inside the noise the limit is drawn from — while every sample
+ * is judged by its residual; the last fit is refined over every kept sample.
  */
 export function fitWithOutlierRejection(
   series: Vec3Series,
@@ -90,23 +122,30 @@ export function fitWithOutlierRejection(
   const n = series.x.length;
   const inliers = Uint8Array.from(eligible);
   const residuals = new Float64Array(n);
-  const scratch = new Float64Array(n);
-  // Rounds stop at the spread subsample's optimum on a long capture (a few standard errors
-  // from the full one, far inside the noise the limit is drawn from); the last is polished.
-  const round = { polish: false };
-  let fitted = fitMagModel(series, model, { mask: inliers }, round);
+  const spread = longCaptureSubsample(series, { mask: eligible });
+  let eligibleCount = 0;
+  for (let i = 0; i < n; i++) eligibleCount += eligible[i];
+  const stride = Math.max(1, Math.floor(eligibleCount / SPREAD_ESTIMATE_SAMPLES));
+  const scratch = new Float64Array(Math.ceil(n / stride));
+  const fitRound = (start?: EllipsoidEstimate) =>
+    spread
+      ? fitMagModel(keptPart(spread, inliers).series, model, {}, { subsample: false }, start)
+      : fitMagModel(series, model, { mask: inliers });
+  let fitted = fitRound();
   if (!fitted.ok) return fitted;
   let rounds = 1;
   while (rounds < maxRounds) {
     radialResiduals(series, fitted.fit.estimate, residuals);
     let count = 0;
-    for (let i = 0; i < n; i++) if (eligible[i] !== 0) scratch[count++] = residuals[i];
+    let seen = 0;
+    for (let i = 0; i < n; i++) if (eligible[i] !== 0 && seen++ % stride === 0) scratch[count++] = residuals[i];
     const median = medianInPlace(scratch, count);
     count = 0;
-    for (let i = 0; i < n; i++) if (eligible[i] !== 0) scratch[count++] = Math.abs(residuals[i] - median);
-    const spread = MAD_TO_SIGMA * medianInPlace(scratch, count);
+    seen = 0;
+    for (let i = 0; i < n; i++) if (eligible[i] !== 0 && seen++ % stride === 0) scratch[count++] = Math.abs(residuals[i] - median);
+    const spreadSigma = MAD_TO_SIGMA * medianInPlace(scratch, count);
     // Noise-free data has MAD ≈ 0; a floor relative to the field keeps round-off from counting as outliers.
-    const limit = Math.max(k * spread, 1e3 * EPSILON * fitted.fit.estimate.fieldStrength);
+    const limit = Math.max(k * spreadSigma, 1e3 * EPSILON * fitted.fit.estimate.fieldStrength);
     let changed = 0;
     let kept = 0;
     for (let i = 0; i < n; i++) {
@@ -117,21 +156,17 @@ export function fitWithOutlierRejection(
     }
     if (changed === 0) break;
     if (kept < MODEL_PARAMETER_COUNT[model] + 1) return { ok: false, detail: "outlier rejection left too few samples" };
-    const refitted = fitMagModel(series, model, { mask: inliers }, round, fitted.fit.estimate);
+    const refitted = fitRound(spread ? fitted.fit.estimate : undefined);
     if (!refitted.ok) return refitted;
     fitted = refitted;
     rounds++;
   }
-  if (n > LONG_CAPTURE_FACTOR * SPREAD_SUBSAMPLE_SIZE) {
-    const final = fitMagModel(series, model, { mask: inliers }, {}, fitted.fit.estimate);
+  if (spread) {
+    const final = fitMagModel(series, model, { mask: inliers }, { spread: keptPart(spread, inliers) }, fitted.fit.estimate);
     if (!final.ok) return final;
     fitted = final;
   }
-  let eligibleCount = 0;
   let kept = 0;
-  for (let i = 0; i < n; i++) {
-    eligibleCount += eligible[i];
-    kept += inliers[i];
-  }
+  for (let i = 0; i < n; i++) kept += inliers[i];
   return { ok: true, robust: { fit: fitted.fit, inliers, outliersRejected: eligibleCount - kept, rounds } };
 }

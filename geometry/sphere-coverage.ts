@@ -58,18 +58,38 @@ function nearestDot(c: Vec3, points: Float64Array, count: number, stopAbove: num
   return best;
 }
 
-/** Centre and angular radius (degrees) of the largest cap of directions free of samples. */
-export function largestEmptyCap(directions: Vec3Series, mask?: Uint8Array): { centre: Vec3; radiusDeg: number } {
+/**
+ * One direction per fine cell (REPRESENTATIVE_RESOLUTION), the first sample to fall in it: the
+ * points the empty-cap search measures against. When `counts` is given, the samples per cell of
+ * the coarser grid `gridResolution` (which must divide the fine one) are counted in the same
+ * pass: a coarse cell's face coordinates are the fine ones divided down, so one cell lookup per
+ * sample serves both.
+ */
+function representatives(
+  directions: Vec3Series,
+  mask: Uint8Array | undefined,
+  counts?: { values: number[]; gridResolution: number },
+): { points: Float64Array; count: number } {
   const { x, y, z } = directions;
-  const cells = cellCount(REPRESENTATIVE_RESOLUTION);
+  const fine = REPRESENTATIVE_RESOLUTION;
+  const cells = cellCount(fine);
   const taken = new Uint8Array(cells);
   const points = new Float64Array(3 * cells);
+  const coarse = counts?.gridResolution ?? 1;
+  const ratio = fine / coarse;
   let count = 0;
   for (let i = 0; i < x.length; i++) {
     if (mask && mask[i] === 0) continue;
     const len = Math.sqrt(x[i] * x[i] + y[i] * y[i] + z[i] * z[i]);
     if (!(len > 0) || !Number.isFinite(len)) continue;
-    const cell = indexOf(x[i], y[i], z[i], REPRESENTATIVE_RESOLUTION);
+    const cell = indexOf(x[i], y[i], z[i], fine);
+    if (counts) {
+      const face = Math.floor(cell / (fine * fine));
+      const rest = cell - face * fine * fine;
+      const iy = Math.floor(Math.floor(rest / fine) / ratio);
+      const ix = Math.floor((rest % fine) / ratio);
+      counts.values[face * coarse * coarse + iy * coarse + ix]++;
+    }
     if (taken[cell]) continue;
     taken[cell] = 1;
     points[3 * count] = x[i] / len;
@@ -77,6 +97,23 @@ export function largestEmptyCap(directions: Vec3Series, mask?: Uint8Array): { ce
     points[3 * count + 2] = z[i] / len;
     count++;
   }
+  return { points, count };
+}
+
+/** Centre and angular radius (degrees) of the largest cap of directions free of samples. */
+export function largestEmptyCap(directions: Vec3Series, mask?: Uint8Array): { centre: Vec3; radiusDeg: number } {
+  const { points, count } = representatives(directions, mask);
+  return emptyCapAmong(points, count, directions, mask);
+}
+
+/** The largest empty cap found among the representative points, its radius then measured against every sample. */
+function emptyCapAmong(
+  points: Float64Array,
+  count: number,
+  directions: Vec3Series,
+  mask: Uint8Array | undefined,
+): { centre: Vec3; radiusDeg: number } {
+  const { x, y, z } = directions;
   if (count === 0) return { centre: [0, 0, 1], radiusDeg: 180 };
 
   // (1) Coarse search: minimise the largest dot product (the nearest sample).
@@ -154,14 +191,20 @@ export function sphereCoverage(directions: Vec3Series, options: CoverageOptions 
   const { x, y, z } = directions;
   const cells = cellCount(gridResolution);
   const counts = new Array<number>(cells).fill(0);
-  for (let i = 0; i < x.length; i++) {
-    if (mask && mask[i] === 0) continue;
-    const len = x[i] * x[i] + y[i] * y[i] + z[i] * z[i];
-    if (!(len > 0) || !Number.isFinite(len)) continue;
-    counts[indexOf(x[i], y[i], z[i], gridResolution)]++;
+  let gap: { centre: Vec3; radiusDeg: number };
+  if (REPRESENTATIVE_RESOLUTION % gridResolution === 0) {
+    const { points, count } = representatives(directions, mask, { values: counts, gridResolution });
+    gap = emptyCapAmong(points, count, directions, mask);
+  } else {
+    for (let i = 0; i < x.length; i++) {
+      if (mask && mask[i] === 0) continue;
+      const len = x[i] * x[i] + y[i] * y[i] + z[i] * z[i];
+      if (!(len > 0) || !Number.isFinite(len)) continue;
+      counts[indexOf(x[i], y[i], z[i], gridResolution)]++;
+    }
+    gap = largestEmptyCap(directions, mask);
   }
   const covered = counts.filter((c) => c >= minSamplesPerCell).length;
-  const gap = largestEmptyCap(directions, mask);
   return {
     cellCount: cells,
     minSamplesPerCell,

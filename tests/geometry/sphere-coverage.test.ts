@@ -1,7 +1,8 @@
 import { describe, expect, test } from "vitest";
 import { applyCorrection } from "@/geometry/calibrate-magnetometer";
 import type { CaptureSpec } from "@/geometry/magnetometer-types";
-import { cellCentre } from "@/geometry/sphere-cells";
+import { createRandom } from "@/geometry/random";
+import { cellCentre, cellCount, cellIndexOf } from "@/geometry/sphere-cells";
 import { largestEmptyCap, sphereCoverage } from "@/geometry/sphere-coverage";
 import { simulateCapture } from "@/geometry/simulator";
 import type { Vec3, Vec3Series } from "@/geometry/types";
@@ -106,5 +107,23 @@ describe("largestEmptyCap", () => {
 
   test("no samples: the whole sphere is a gap", () => {
     expect(largestEmptyCap(seriesOf([])).radiusDeg).toBe(180);
+  });
+});
+
+describe("cell counts from the one-pass lookup", () => {
+  test.each([1, 2, 4, 8, 16, 32, 3, 5])("match a direct count at resolution %i", (gridResolution) => {
+    const random = createRandom(42);
+    const n = 5000;
+    const d = { x: new Float64Array(n), y: new Float64Array(n), z: new Float64Array(n) };
+    for (let i = 0; i < n; i++) {
+      d.x[i] = random.gaussian();
+      d.y[i] = random.gaussian();
+      d.z[i] = random.gaussian();
+    }
+    const direct = new Array<number>(cellCount(gridResolution)).fill(0);
+    for (let i = 0; i < n; i++) direct[cellIndexOf(d.x[i], d.y[i], d.z[i], gridResolution)]++;
+    const result = sphereCoverage(d, { gridResolution });
+    expect(result.cellCounts).toEqual(direct);
+    expect(result.largestGapDeg).toBeCloseTo(largestEmptyCap(d).radiusDeg, 9);
   });
 });

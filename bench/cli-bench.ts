@@ -3,7 +3,8 @@
  * sample magnetometer CSV, alternated in one run so that a busy machine slows both alike.
  *
  * - `npm run fit -- file.csv`: what a person types (npm's own start-up included);
- * - `node dist/cli/fit.mjs file.csv`: the bundled CLI run by plain node;
+ * - `node dist/cli/fit.mjs file.csv`: the bundled CLI run by plain node, then with the V8
+ *   settings `npm run fit` uses;
  * - `python3 bench/numpy-fit.py file.csv`: loadtxt + least squares + eigen-decomposition,
  *   the reference (it fits and prints far less: no outlier rejection, intervals or checks).
  * Prints the median of REPEATS runs of each and the ratios to numpy; the goal is ≤ 1.0×.
@@ -21,6 +22,7 @@ const REPEATS = 5;
 const ROOT = path.resolve(__dirname, "..");
 const OUT = path.join(ROOT, "bench", "out");
 const BUNDLE = path.join(ROOT, "dist", "cli", "fit.mjs");
+const NODE_SETTINGS = ["--max-semi-space-size=32", "--no-lazy-feedback-allocation"];
 
 function writeCapture(file: string, rows: number): void {
   if (fs.existsSync(file)) return;
@@ -76,7 +78,11 @@ export function benchCliAgainstNumpy(): { npmRatio: number | null; nodeRatio: nu
   const hasNumpy = spawnSync("python3", ["-c", "import numpy"], { stdio: "ignore" }).status === 0;
   const numpy: Contender = { label: "numpy script", command: "python3", args: [path.join("bench", "numpy-fit.py"), file] };
   timeOnce(contenders[0]);
-  if (fs.existsSync(BUNDLE)) contenders.push({ label: "node dist/cli/fit.mjs", command: process.execPath, args: [BUNDLE, file, ...site] });
+  if (fs.existsSync(BUNDLE)) {
+    contenders.push({ label: "node dist/cli/fit.mjs", command: process.execPath, args: [BUNDLE, file, ...site] });
+    // The same with the V8 settings npm run fit starts node with (package.json, scripts/fit.mjs).
+    contenders.push({ label: "node + settings", command: process.execPath, args: [...NODE_SETTINGS, BUNDLE, file, ...site] });
+  }
   if (hasNumpy) contenders.push(numpy);
   const times = new Map<string, number[]>(contenders.map((c) => [c.label, []]));
   for (let r = 0; r < REPEATS; r++) for (const c of contenders) times.get(c.label)!.push(timeOnce(c));

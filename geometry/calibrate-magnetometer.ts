@@ -40,6 +40,25 @@ import { identity3, mulMat } from "./vector";
 /** Usable samples needed per model parameter. */
 export const SAMPLES_PER_PARAMETER = 10;
 
+/**
+ * Samples the support check looks at, at most: its measures are averages over the cloud
+ * (covariance, circle-fit residual, mean direction), which every k-th sample in time gives to
+ * well under a percent on a longer capture. Engineering choice.
+ */
+export const SUPPORT_SAMPLES = 100_000;
+
+/** `mask` thinned to every k-th selected sample, so that at most `limit` remain (the mask itself when it has fewer). */
+function everyKth(mask: Uint8Array, limit: number): Uint8Array {
+  let count = 0;
+  for (let i = 0; i < mask.length; i++) count += mask[i];
+  const stride = Math.ceil(count / limit);
+  if (stride <= 1) return mask;
+  const thinned = new Uint8Array(mask.length);
+  let seen = 0;
+  for (let i = 0; i < mask.length; i++) if (mask[i] !== 0 && seen++ % stride === 0) thinned[i] = 1;
+  return thinned;
+}
+
 /** corrected = softIronMatrix · (raw − hardIronOffset), sample by sample. Non-finite samples stay non-finite. */
 export function applyCorrection(cal: { hardIronOffset: Vec3; softIronMatrix: Mat3 }, field: Vec3Series): Vec3Series {
   const n = field.x.length;
@@ -124,7 +143,7 @@ export function calibrateMagnetometer(field: Vec3Series, options: CalibrateMagne
   clearRuns(usable, findRejectedRuns(eligible, usable));
 
   const largestModel: MagModel = choice === "auto" ? "full" : choice;
-  const support = checkFitSupport(field, usable, SAMPLES_PER_PARAMETER * MODEL_PARAMETER_COUNT[largestModel]);
+  const support = checkFitSupport(field, everyKth(usable, SUPPORT_SAMPLES), SAMPLES_PER_PARAMETER * MODEL_PARAMETER_COUNT[largestModel]);
   if (!support.ok) {
     return {
       ok: false,

@@ -30,34 +30,35 @@ const POWERS_OF_TEN = Array.from({ length: 16 }, (_, k) => 10 ** k);
 /** Most significant digits read in the fast lane: 15 keeps the mantissa below 2^53. */
 export const FAST_DIGITS = 15;
 
+/** Where the last parseDecimalAt stopped: after the number and any blanks behind it. Module scratch, allocation-free. */
+let parsedEnd = 0;
+
 /**
- * The number written in bytes[start, end), spaces and tabs around it allowed, or NaN when the
- * text is not a plain decimal the fast lane takes (the general reader then decides).
+ * The plain decimal starting at bytes[i] (blanks before and after allowed; a tab counts as a
+ * blank unless it is the delimiter), read up to `end` or the delimiter; NaN when there is
+ * none or it is not one the fast lane takes. Sets parsedEnd.
  */
-export function parseDecimalBytes(bytes: Uint8Array, start: number, end: number): number {
-  let i = start;
-  let j = end;
-  while (i < j && (bytes[i] === SPACE || bytes[i] === TAB)) i++;
-  while (j > i && (bytes[j - 1] === SPACE || bytes[j - 1] === TAB)) j--;
-  if (i === j) return Number.NaN;
+function parseDecimalAt(bytes: Uint8Array, i: number, end: number, delimiter: number): number {
+  const tabIsBlank = delimiter !== TAB;
+  while (i < end && (bytes[i] === SPACE || (tabIsBlank && bytes[i] === TAB))) i++;
   let negative = false;
-  if (bytes[i] === MINUS) {
+  if (i < end && bytes[i] === MINUS) {
     negative = true;
     i++;
-  } else if (bytes[i] === PLUS) i++;
+  } else if (i < end && bytes[i] === PLUS) i++;
   let mantissa = 0;
   let digits = 0;
   let decimals = 0;
-  while (i < j) {
+  while (i < end) {
     const c = bytes[i];
     if (c < ZERO || c > NINE) break;
     mantissa = mantissa * 10 + (c - ZERO);
     digits++;
     i++;
   }
-  if (i < j && bytes[i] === POINT) {
+  if (i < end && bytes[i] === POINT) {
     i++;
-    while (i < j) {
+    while (i < end) {
       const c = bytes[i];
       if (c < ZERO || c > NINE) break;
       mantissa = mantissa * 10 + (c - ZERO);
@@ -66,15 +67,27 @@ export function parseDecimalBytes(bytes: Uint8Array, start: number, end: number)
       i++;
     }
   }
-  if (i !== j || digits === 0 || digits > FAST_DIGITS) return Number.NaN;
+  while (i < end && (bytes[i] === SPACE || (tabIsBlank && bytes[i] === TAB))) i++;
+  parsedEnd = i;
+  if (digits === 0 || digits > FAST_DIGITS) return Number.NaN;
   const value = decimals === 0 ? mantissa : mantissa / POWERS_OF_TEN[decimals];
   return negative ? -value : value;
+}
+
+/**
+ * The number written in bytes[start, end), spaces and tabs around it allowed, or NaN when the
+ * text is not a plain decimal the fast lane takes (the general reader then decides).
+ */
+export function parseDecimalBytes(bytes: Uint8Array, start: number, end: number): number {
+  const value = parseDecimalAt(bytes, start, end, -1);
+  return parsedEnd === end ? value : Number.NaN;
 }
 
 /**
  * Reads the cells at `wanted` (ascending column indices) of the line bytes[start, end) split
  * at `delimiter`, into `out` in the order of `wanted`. False when the line has other than
  * `width` cells or a wanted cell is not a plain decimal: the caller reads it the general way.
+ * One pass over the bytes: wanted cells are read as they are scanned, others skipped.
  */
 export function readNumericLine(
   bytes: Uint8Array,
@@ -86,20 +99,23 @@ export function readNumericLine(
   out: Float64Array,
 ): boolean {
   let column = 0;
-  let cellStart = start;
   let next = 0;
   let want = wanted.length > 0 ? wanted[0] : -1;
-  for (let i = start; i <= end; i++) {
-    if (i < end && bytes[i] !== delimiter) continue;
+  let i = start;
+  for (;;) {
     if (column === want) {
-      const value = parseDecimalBytes(bytes, cellStart, i);
-      if (value !== value) return false;
+      const value = parseDecimalAt(bytes, i, end, delimiter);
+      i = parsedEnd;
+      if (value !== value || (i < end && bytes[i] !== delimiter)) return false;
       out[next++] = value;
       want = next < wanted.length ? wanted[next] : -1;
+    } else {
+      while (i < end && bytes[i] !== delimiter) i++;
     }
     column++;
-    cellStart = i + 1;
-    if (column > width) return false;
+    if (i >= end) break;
+    i++; // past the delimiter
+    if (column >= width) return false;
   }
   return column === width && next === wanted.length;
 }

@@ -221,7 +221,7 @@ export function describeRuns(
       const d0 = series.x[i] - b0;
       const d1 = series.y[i] - b1;
       const d2 = series.z[i] - b2;
-      const m = Math.hypot(w00 * d0 + w01 * d1 + w02 * d2, w10 * d0 + w11 * d1 + w12 * d2, w20 * d0 + w21 * d1 + w22 * d2);
+      const m = distance(w00 * d0 + w01 * d1 + w02 * d2, w10 * d0 + w11 * d1 + w12 * d2, w20 * d0 + w21 * d1 + w22 * d2);
       if (Number.isFinite(m)) multiples[count++] = m / correction.fieldStrength;
     }
     const start = time?.[run.startIndex];

@@ -9,6 +9,7 @@
  * cells were counted in.
  */
 import type { CaptureAnalysis } from "./analyse-capture";
+import { selectKth } from "./outlier-rejection";
 import type { ColumnTable, Mat3, Vec3 } from "./types";
 
 export interface RunViewMagnetometer {
@@ -64,10 +65,10 @@ function round(value: number, digits = 3): number {
 
 function histogram(values: Float64Array, bins: number): { edges: number[]; counts: number[] } | null {
   if (values.length === 0) return null;
-  // Clip to the 0.5–99.5 percentiles so one outlier does not flatten every bar.
-  const sorted = Float64Array.from(values).sort();
-  const low = sorted[Math.floor(0.005 * (sorted.length - 1))];
-  const high = sorted[Math.ceil(0.995 * (sorted.length - 1))];
+  // Clip to the 0.5–99.5 percentiles so one outlier does not flatten every bar (two selections, not a sort).
+  const scratch = Float64Array.from(values);
+  const low = selectKth(scratch, scratch.length, Math.floor(0.005 * (scratch.length - 1)));
+  const high = selectKth(scratch, scratch.length, Math.ceil(0.995 * (scratch.length - 1)));
   const span = high - low || 1e-6;
   const counts = new Array<number>(bins).fill(0);
   for (let i = 0; i < values.length; i++) {
@@ -113,7 +114,7 @@ export function buildRunView(
         cx = W[0][0] * dx + W[0][1] * dy + W[0][2] * dz;
         cy = W[1][0] * dx + W[1][1] * dy + W[1][2] * dz;
         cz = W[2][0] * dx + W[2][1] * dy + W[2][2] * dz;
-        if (residuals) residuals[i] = Math.hypot(cx, cy, cz) - m.fieldStrength!;
+        if (residuals) residuals[i] = Math.sqrt(cx * cx + cy * cy + cz * cz) - m.fieldStrength!;
       }
       if (i % pointStep === 0) {
         raw.push(round(x[i]), round(y[i]), round(z[i]));

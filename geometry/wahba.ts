@@ -78,7 +78,10 @@ export function relativeRotation(reference: Vec3Series, other: Vec3Series, mask?
     const rx = rotation[0][0] * bx + rotation[0][1] * by + rotation[0][2] * bz;
     const ry = rotation[1][0] * bx + rotation[1][1] * by + rotation[1][2] * bz;
     const rz = rotation[2][0] * bx + rotation[2][1] * by + rotation[2][2] * bz;
-    const crossNorm = Math.hypot(ay * rz - az * ry, az * rx - ax * rz, ax * ry - ay * rx);
+    const cx = ay * rz - az * ry;
+    const cy = az * rx - ax * rz;
+    const cz = ax * ry - ay * rx;
+    const crossNorm = Math.sqrt(cx * cx + cy * cy + cz * cz);
     const angle = Math.atan2(crossNorm, ax * rx + ay * ry + az * rz);
     if (Number.isFinite(angle)) sumSq += angle * angle;
   }

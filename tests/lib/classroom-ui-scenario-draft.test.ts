@@ -143,7 +143,7 @@ describe("readScenarioSpec: one message per bad field, under the API's field nam
       "a burst too brief",
       (d: ScenarioDraft) => ((d.glitchBurst.on = true), (d.glitchBurst.durationS = "0.05")),
       "spec.glitchBurst.durationS",
-      /between 0.1 s and 10 s/,
+      /between 0.1 s and 4 s/,
     ],
     [
       "a burst too faint to leave the sphere",
@@ -376,7 +376,7 @@ describe("readScenarioSpec agrees with the server's schema (lib/validations/clas
     ["shortest burst at the start", at({ glitchBurst: { kind: "stuck", startS: 0, durationS: 0.1, fieldMultiple: 1.5 } })],
     ["burst before the start", at({ glitchBurst: { kind: "stuck", startS: -0.1, durationS: 1, fieldMultiple: 4 } })],
     ["burst too brief", at({ glitchBurst: { kind: "stuck", startS: 5, durationS: 0.09, fieldMultiple: 4 } })],
-    ["burst too long", at({ glitchBurst: { kind: "stuck", startS: 5, durationS: 10.1, fieldMultiple: 4 } })],
+    ["burst too long", at({ glitchBurst: { kind: "stuck", startS: 5, durationS: 4.1, fieldMultiple: 4 } })],
     ["burst too small", at({ glitchBurst: { kind: "magnet", startS: 5, durationS: 1, fieldMultiple: 1.4 } })],
     ["burst too large", at({ glitchBurst: { kind: "magnet", startS: 5, durationS: 1, fieldMultiple: 20.1 } })],
   ])("%s", (_label, spec) => {

@@ -85,7 +85,7 @@ describe("scenarioSpecSchema", () => {
       "a burst too short",
       { glitchBurst: { kind: "magnet", startS: 10, durationS: 0.05, fieldMultiple: 4 } },
       "glitchBurst.durationS",
-      /Glitch burst length must be between 0\.1 and 10/,
+      /Glitch burst length must be between 0\.1 and 4/,
     ],
     [
       "a burst too long",

@@ -75,8 +75,7 @@ beforeAll(async () => {
       .filter(({ sensor }) => sensor.kind === "magnetometer");
     if (compasses.length > 0) args.push("--mount", compasses.map(({ slot, sensor }) => `${slot}=${sensor.mountingRotation}`).join(","));
     const ranges = compasses.filter(({ sensor }) => typeof sensor.fullScaleRangeUt === "number");
-    if (ranges.length > 0)
-      args.push("--range", ranges.map(({ slot, sensor }) => `${slot}=${sensor.fullScaleRangeUt}`).join(","));
+    if (ranges.length > 0) args.push("--range", ranges.map(({ slot, sensor }) => `${slot}=${sensor.fullScaleRangeUt}`).join(","));
     demoRuns.push({ title: run.title, args, stored: version!.results as Record<string, unknown>, statesRange: ranges.length > 0 });
   }
 }, 600_000);
@@ -102,4 +101,3 @@ test("npm run fit prints the results the worker stored, for the demo captures", 
   // The demo fleet has a motor current test; both sides call it a motor run.
   expect(printed.filter((document) => document.powersMotors === true).length).toBeGreaterThanOrEqual(1);
 });
-

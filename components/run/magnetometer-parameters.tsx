@@ -70,6 +70,15 @@ function Mounting({ compass }: { compass: MagnetometerAnalysis }) {
  * soft-iron matrix, field strength against the World Magnetic Model, residual, samples,
  * saturation and mounting; for a refused fit, the reason instead.
  */
+
+/** Where the per-axis intervals come from, for the table's caption (older results have no method: a bootstrap). */
+function intervalCaption(calibration: { bootstrapResamples: number; intervalMethod?: "bootstrap" | "sandwich" | "none" }): string {
+  const method = calibration.intervalMethod ?? (calibration.bootstrapResamples > 0 ? "bootstrap" : "none");
+  if (method === "sandwich") return "Per axis, with 95% intervals from the sandwich covariance (a long capture: many samples, one pass)";
+  if (method === "none") return "Per axis (no intervals were computed)";
+  return `Per axis, with 95% intervals from ${calibration.bootstrapResamples} bootstrap resamples`;
+}
+
 export function MagnetometerParameters({
   compass,
   name,
@@ -160,9 +169,7 @@ export function MagnetometerParameters({
 
           <div className="grid gap-4 lg:grid-cols-[2fr_1fr] print:grid-cols-[auto_1fr]">
             <table className={TABLE} data-testid="per-axis">
-              <caption className="mb-1 text-left text-sm font-medium">
-                Per axis, with 95% intervals from {calibration.bootstrapResamples} bootstrap resamples
-              </caption>
+              <caption className="mb-1 text-left text-sm font-medium">{intervalCaption(calibration)}</caption>
               <thead>
                 <tr>
                   <th scope="col" className={TH}>

@@ -14,7 +14,7 @@ import Papa from "papaparse";
 import { recogniseColumns, sensorsInFields, type ColumnRecognition } from "@/geometry/column-names";
 import type { CaptureField, ColumnTable } from "@/geometry/types";
 import type { UnitSpec } from "@/geometry/units";
-import { readNumericLine, suitsFastLane } from "@/lib/ingest/numeric-lines";
+import { parseNumber, readNumericLine, suitsFastLane } from "@/lib/ingest/numeric-lines";
 
 /** A file that cannot be read, with where the problem is (1-based line number, column name). */
 export class IngestError extends Error {
@@ -286,14 +286,6 @@ class TableBuilder {
       notes: this.notes,
     };
   }
-}
-
-/** Unary plus accepts "", " " and "0x1f"; a calibration file means none of those. */
-function parseNumber(cell: string | undefined): number {
-  if (cell === undefined) return Number.NaN;
-  const trimmed = cell.trim();
-  if (trimmed === "" || !/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(trimmed)) return Number.NaN;
-  return Number(trimmed);
 }
 
 function describeBadCell(cell: string | undefined): string {

@@ -40,11 +40,33 @@ describe("parseDecimalBytes", () => {
     );
   });
 
-  test.each([" 12.5 ", "\t-3", ".5", "7.", "+0.25"])("takes %j", (text) => {
+  test.each([
+    " 12.5 ",
+    "\t-3",
+    ".5",
+    "7.",
+    "+0.25",
+    "1e5",
+    "-2.5E-3",
+    "1.e5",
+    "1234567890123456",
+    "-9.780940505564887",
+    "0.00021862356757452297",
+  ])("takes %j, as Number() reads it", (text) => {
     expect(parse(text)).toBe(Number(text.trim()));
   });
 
-  test.each(["", "  ", ".", "-", "1e5", "0x1f", "1,5", "12a", "nan", "1234567890123456", '"1.5"', "1 2"])(
+  test("full-precision doubles come back exactly (property)", () => {
+    fc.assert(
+      fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), (v) => {
+        const text = String(v);
+        expect(Object.is(parse(text), v) || (v === 0 && parse(text) === 0)).toBe(true);
+      }),
+      { numRuns: 5000 },
+    );
+  });
+
+  test.each(["", "  ", ".", "-", "e5", "1e", "1e+", "1e999", "0x1f", "1,5", "12a", "nan", "Infinity", '"1.5"', "1 2"])(
     "leaves %j to the general reader",
     (text) => {
       expect(Number.isNaN(parse(text))).toBe(true);
@@ -96,6 +118,21 @@ async function ingestError(run: () => Promise<unknown> | unknown): Promise<Inges
 }
 
 describe("the fast lane and the CSV parser give the same table", () => {
+  test("full-precision doubles and exponents, as scripts print them, are read exactly", async () => {
+    const lines = ["time,mag_x,mag_y,mag_z"];
+    const values: number[][] = [];
+    for (let i = 0; i < 200; i++) {
+      const row = [i / 100, Math.sin(i) * 48.123456789, Math.cos(i) * 1e-5, -9.780940505564887 + i * 1e-13];
+      values.push(row);
+      lines.push(row.map(String).join(","));
+    }
+    const fast = await parseCsvStream(streamOf(lines.join("\n") + "\n", 777));
+    const general = parseCsvTable(lines.join("\n") + "\n");
+    for (const field of general.table.fields) expect(fast.table.columns[field]).toEqual(general.table.columns[field]);
+    expect(Array.from(fast.table.columns["compass_a.x"])).toEqual(values.map((row) => row[1]));
+    expect(Array.from(fast.table.columns["compass_a.z"])).toEqual(values.map((row) => row[3]));
+  });
+
   test.each([2000, 2001])("messy file of %i rows, read in uneven chunks", async (rows) => {
     const text = messyCsv(rows);
     const general = parseCsvTable(text);
@@ -114,6 +151,8 @@ describe("the fast lane and the CSV parser give the same table", () => {
     { label: "a short row", edit: (l: string) => l.split(",").slice(0, 5).join(",") },
     { label: "a decimal comma", edit: (l: string) => l.replace(",0.01,", ',"0,01",') },
     { label: "time going backwards", edit: () => "5,1,2,3,0,0,-9.8," },
+    { label: "a number too large to hold", edit: (l: string) => l.replace(",0.01,", ",1e999,") },
+    { label: "a long number with a stray letter", edit: (l: string) => l.replace(",0.01,", ",0.0100000000000000x,") },
   ])("the same message for $label", async ({ edit }) => {
     const lines = messyCsv(600).split("\r\n");
     lines[500] = edit(lines[500]);

@@ -18,6 +18,8 @@ export type ProcessOutcome = "done" | "failed" | "skipped";
 /** Test seam: lets a test stop the work between parsing and saving, as a crash would. */
 export interface ProcessHooks {
   afterParse?: (versionId: string) => void | Promise<void>;
+  /** Seconds spent reading (stream, parse), fitting, storing the samples and view, and recording the results. */
+  timings?: (seconds: { read: number; fit: number; save: number; record: number }) => void;
 }
 
 function unitsOf(stored: Record<string, string>): CaptureUnits {
@@ -88,6 +90,8 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
   const site = version.site;
 
   // The same ingest as `npm run fit`: limits, capture date at noon UTC, units stated > named > guessed.
+  const started = performance.now();
+  let readDone = started;
   let ingested, analysis, common;
   let parsed = false;
   try {
@@ -112,6 +116,7 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       {
         afterParse: async () => {
           parsed = true;
+          readDone = performance.now();
           await hooks.afterParse?.(versionId);
           await setStage("Fitting", 0.65);
         },
@@ -125,15 +130,18 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
     throw error;
   }
 
+  const fitDone = performance.now();
   await setStage("Saving", 0.9);
   const { table } = ingested;
   const samplesKey = `${run.fileKey.replace(/\/upload\/[^/]+$/, "")}/versions/${version.number}/samples.f32`;
-  await putObject(samplesKey, packSamples(table.fields, table.columns, table.length));
+  // The samples go to storage while the view is cut down: the store works on its own meanwhile.
+  const samplesStored = putObject(samplesKey, packSamples(table.fields, table.columns, table.length));
   // What the run page draws, cut down here once rather than on every page view.
   const fieldBandPercent = resolveThresholds()["mag.field-vs-model"].warnAbove ?? 10;
   const view = buildRunView(convertCapture(table, analysis.units), analysis, { fieldBandPercent });
   const viewKey = samplesKey.replace(/samples\.f32$/, "view.json");
-  await putObject(viewKey, JSON.stringify(toJsonSafe(view)), "application/json");
+  await Promise.all([samplesStored, putObject(viewKey, JSON.stringify(toJsonSafe(view)), "application/json")]);
+  const saveDone = performance.now();
 
   const first = analysis.magnetometers.find((m) => m.ok) ?? null;
   const offsetNorm = first?.offset ? Math.hypot(...first.offset) : null;
@@ -181,6 +189,13 @@ export async function processRunVersion(versionId: string, hooks: ProcessHooks =
       );
     }
     return "done" as const;
+  });
+  const seconds = (from: number, to: number) => (to - from) / 1000;
+  hooks.timings?.({
+    read: seconds(started, readDone),
+    fit: seconds(readDone, fitDone),
+    save: seconds(fitDone, saveDone),
+    record: seconds(saveDone, performance.now()),
   });
   return outcome;
 }

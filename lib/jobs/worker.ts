@@ -13,9 +13,14 @@ export async function startWorker(log: (line: string) => void = console.log, hoo
     { batchSize: 1, pollingIntervalSeconds: 0.5, includeMetadata: true },
     async ([job]) => {
       const started = Date.now();
+      let stages = "";
+      const timings = (t: { read: number; fit: number; save: number; record: number }) => {
+        stages = ` (read ${t.read.toFixed(2)} s, fit ${t.fit.toFixed(2)} s, save ${t.save.toFixed(2)} s, record ${t.record.toFixed(2)} s)`;
+        hooks.timings?.(t);
+      };
       try {
-        const outcome = await processRunVersion(job.data.versionId, hooks);
-        log(`[worker] version ${job.data.versionId}: ${outcome} in ${Date.now() - started} ms`);
+        const outcome = await processRunVersion(job.data.versionId, { ...hooks, timings });
+        log(`[worker] version ${job.data.versionId}: ${outcome} in ${Date.now() - started} ms${stages}`);
       } catch (error) {
         log(`[worker] version ${job.data.versionId}: attempt ${job.retryCount + 1} failed: ${(error as Error).message}`);
         if (job.retryCount >= JOB_SETTINGS.retryLimit) await giveUp(job.data.versionId, (error as Error).message);

@@ -75,18 +75,23 @@ export const SUM_SAMPLES = 50_000;
 
 function everyKthInlier(inliers: Uint8Array): { selection: SampleSelection; fraction: number } {
   let kept = 0;
-  for (let i = 0; i < inliers.length; i++) kept += inliers[i] !== 0 ? 1 : 0;
+  for (let i = 0; i < inliers.length; i++) kept += inliers[i];
   const stride = Math.max(1, Math.ceil(kept / SUM_SAMPLES));
   if (stride === 1) return { selection: { mask: inliers }, fraction: 1 };
-  const indices = new Int32Array(Math.ceil(kept / stride));
+  // A thinned mask rather than a list of indices: the sums then run the same compiled loop as the fit's.
+  const thinned = new Uint8Array(inliers.length);
   let taken = 0;
-  let seen = 0;
+  let countdown = 0;
   for (let i = 0; i < inliers.length; i++) {
     if (inliers[i] === 0) continue;
-    if (seen % stride === 0) indices[taken++] = i;
-    seen++;
+    if (countdown === 0) {
+      thinned[i] = 1;
+      taken++;
+      countdown = stride;
+    }
+    countdown--;
   }
-  return { selection: { indices: indices.subarray(0, taken) }, fraction: taken / kept };
+  return { selection: { mask: thinned }, fraction: taken / kept };
 }
 
 /** Inverse of a symmetric positive definite matrix by its eigen-decomposition; null when singular. */

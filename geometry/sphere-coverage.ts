@@ -69,11 +69,12 @@ function representatives(
   directions: Vec3Series,
   mask: Uint8Array | undefined,
   counts?: { values: number[]; gridResolution: number },
-): { points: Float64Array; count: number } {
+): Representatives {
   const { x, y, z } = directions;
   const fine = REPRESENTATIVE_RESOLUTION;
   const cells = cellCount(fine);
   const taken = new Uint8Array(cells);
+  const cellPoint = new Int32Array(cells).fill(-1);
   const points = new Float64Array(3 * cells);
   const coarse = counts?.gridResolution ?? 1;
   const ratio = fine / coarse;
@@ -92,28 +93,57 @@ function representatives(
     }
     if (taken[cell]) continue;
     taken[cell] = 1;
+    cellPoint[cell] = count;
     points[3 * count] = x[i] / len;
     points[3 * count + 1] = y[i] / len;
     points[3 * count + 2] = z[i] / len;
     count++;
   }
-  return { points, count };
+  return { points, count, cellPoint };
+}
+
+interface Representatives {
+  /** Unit vectors, three numbers each, `count` of them. */
+  points: Float64Array;
+  count: number;
+  /** Fine cell → index of its point, −1 for an empty cell. */
+  cellPoint: Int32Array;
+}
+
+/**
+ * The largest dot product between candidate k (a centre of the CANDIDATE_RESOLUTION grid) and
+ * the points, as nearestDot gives it, but looking first at the points of the fine cells inside
+ * the candidate's own cell: when one of them is already above `stopAbove` (the usual case on a
+ * well-covered sphere) the answer is known without a scan.
+ */
+function nearestDotOfCandidate(k: number, c: Vec3, reps: Representatives, stopAbove: number): number {
+  const coarse = CANDIDATE_RESOLUTION;
+  const fine = REPRESENTATIVE_RESOLUTION;
+  const ratio = fine / coarse;
+  const face = Math.floor(k / (coarse * coarse));
+  const rest = k - face * coarse * coarse;
+  const iy = Math.floor(rest / coarse);
+  const ix = rest - iy * coarse;
+  const { points, cellPoint } = reps;
+  for (let dy = 0; dy < ratio; dy++) {
+    for (let dx = 0; dx < ratio; dx++) {
+      const j = cellPoint[face * fine * fine + (iy * ratio + dy) * fine + (ix * ratio + dx)];
+      if (j < 0) continue;
+      if (c[0] * points[3 * j] + c[1] * points[3 * j + 1] + c[2] * points[3 * j + 2] > stopAbove) return Infinity;
+    }
+  }
+  return nearestDot(c, points, reps.count, stopAbove);
 }
 
 /** Centre and angular radius (degrees) of the largest cap of directions free of samples. */
 export function largestEmptyCap(directions: Vec3Series, mask?: Uint8Array): { centre: Vec3; radiusDeg: number } {
-  const { points, count } = representatives(directions, mask);
-  return emptyCapAmong(points, count, directions, mask);
+  return emptyCapAmong(representatives(directions, mask), directions, mask);
 }
 
 /** The largest empty cap found among the representative points, its radius then measured against every sample. */
-function emptyCapAmong(
-  points: Float64Array,
-  count: number,
-  directions: Vec3Series,
-  mask: Uint8Array | undefined,
-): { centre: Vec3; radiusDeg: number } {
+function emptyCapAmong(reps: Representatives, directions: Vec3Series, mask: Uint8Array | undefined): { centre: Vec3; radiusDeg: number } {
   const { x, y, z } = directions;
+  const { points, count } = reps;
   if (count === 0) return { centre: [0, 0, 1], radiusDeg: 180 };
 
   // (1) Coarse search: minimise the largest dot product (the nearest sample).
@@ -122,7 +152,7 @@ function emptyCapAmong(
   for (let k = 0; k < candidates.length / 3; k++) {
     const c: Vec3 = [candidates[3 * k], candidates[3 * k + 1], candidates[3 * k + 2]];
     const worstAllowed = ranked.length < 3 ? Infinity : ranked[ranked.length - 1].dot;
-    const d = nearestDot(c, points, count, worstAllowed);
+    const d = nearestDotOfCandidate(k, c, reps, worstAllowed);
     if (d < worstAllowed) {
       ranked.push({ c, dot: d });
       ranked.sort((a, b) => a.dot - b.dot);
@@ -193,8 +223,7 @@ export function sphereCoverage(directions: Vec3Series, options: CoverageOptions 
   const counts = new Array<number>(cells).fill(0);
   let gap: { centre: Vec3; radiusDeg: number };
   if (REPRESENTATIVE_RESOLUTION % gridResolution === 0) {
-    const { points, count } = representatives(directions, mask, { values: counts, gridResolution });
-    gap = emptyCapAmong(points, count, directions, mask);
+    gap = emptyCapAmong(representatives(directions, mask, { values: counts, gridResolution }), directions, mask);
   } else {
     for (let i = 0; i < x.length; i++) {
       if (mask && mask[i] === 0) continue;

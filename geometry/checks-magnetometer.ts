@@ -8,6 +8,7 @@ import { slotWords } from "./sensor-slots";
 import { mountingRotationById } from "./mounting-rotations";
 import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { fmt, gradedCheck, skippedCheck } from "./checks-common";
+import { LEFT_OUT_TITLE, leftOutCheck } from "./checks-left-out";
 import type { DipMeasurement } from "./dip-check";
 import type { MagneticReference } from "./magnetic-reference";
 import { magnetometerRange, rangeHeadroom } from "./magnetometer-range";
@@ -24,7 +25,6 @@ import type { Check, Mat3 } from "./types";
 import { angleBetweenRotationsDeg } from "./rotation";
 import { MOTOR_SAFETY_CAUTION } from "./motor-safety";
 import { sentences, withoutFinalStop } from "./sentence";
-import { rejectedStretchWords } from "./burst-words";
 import { norm } from "./vector";
 
 const SITE_ADVICE =
@@ -70,6 +70,7 @@ export function magnetometerChecks(input: MagnetometerCheckInput, thresholds: Th
     for (const [id, title] of FIT_DEPENDENT) checks.push(skippedCheck(thresholds, id, title, sensor, reason));
   } else {
     checks.push(
+      leftOutCheck(sensor, result, thresholds),
       residualCheck(sensor, result, thresholds),
       fieldVsModelCheck(sensor, result, input.unitsPhysical, input.reference, thresholds),
       fieldPlausibleCheck(sensor, result, input.unitsPhysical, thresholds),
@@ -85,6 +86,7 @@ export function magnetometerChecks(input: MagnetometerCheckInput, thresholds: Th
 }
 
 const FIT_DEPENDENT: [string, string][] = [
+  ["mag.left-out", LEFT_OUT_TITLE],
   ["mag.residual", "Fit residual"],
   ["mag.field-vs-model", "Field strength against the model"],
   ["mag.field-plausible", "Field strength on Earth"],
@@ -165,12 +167,20 @@ export function fitCheck(sensor: string, result: MagnetometerResult): Check {
     threshold: null,
     unit: null,
     explanation: sentences(
-      `Fitted with the ${MODEL_WORDS[result.model]} model (${result.modelReason}); ${result.samplesUsed} samples used, ${result.outliersRejected} rejected as outliers`,
-      rejectedStretchWords(result.rejectedStretches),
+      `Fitted with the ${MODEL_WORDS[result.model]} model (${result.modelReason}); ${result.samplesUsed} samples used, ${result.outliersRejected} rejected as outliers${stretchesNote(result)}`,
     ),
     remedy: null,
     source: "common practice",
   };
+}
+
+/** ", 60 of them in one stretch left out whole (see Stretches left out)", or nothing. */
+function stretchesNote(result: MagnetometerCalibration): string {
+  const stretches = result.rejectedStretches;
+  if (stretches.length === 0) return "";
+  const inStretches = stretches.reduce((sum, stretch) => sum + stretch.samples, 0);
+  const count = stretches.length === 1 ? "one stretch" : `${stretches.length} stretches`;
+  return `, ${inStretches} of them in ${count} left out whole (see ${LEFT_OUT_TITLE})`;
 }
 
 const MODEL_WORDS = { sphere: "offset-only", axis: "offset and per-axis scale", full: "offset and full soft-iron" } as const;

@@ -104,6 +104,13 @@ export const THRESHOLDS = {
     basis:
       "a disturbance of p% of the field can turn the heading by up to asin(p/100 · field/horizontal field), i.e. about 7° for 5% at 65° of dip",
   },
+  "mag.left-out": {
+    warnAbove: 0,
+    unit: "% of readings",
+    source: "common practice",
+    basis:
+      "a stretch of readings far off the sphere means something magnetic came close to the compass for a moment or its connection dropped out; the fit sets the stretch aside, but the cause may still be on the vehicle",
+  },
   "mag.samples-clipped": {
     failAbove: 0,
     unit: "samples",

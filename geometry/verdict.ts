@@ -107,6 +107,13 @@ export const CAUSES: readonly CauseRule[] = [
     evidence: { "mag.hard-iron": 2, "mag.samples-clipped": 1 },
   },
   {
+    id: "passing-disturbance",
+    title: "Something disturbed the compass for a moment",
+    action:
+      "Keep phones, tools and magnets away from the vehicle while it is turned, check that the compass connector and cable are seated, and repeat the capture.",
+    evidence: { "mag.left-out": 2 },
+  },
+  {
     id: "ferrous-metal",
     title: "Iron or steel close to the compass",
     action: "Move the compass away from steel parts or replace steel fasteners near it.",

@@ -106,9 +106,9 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
     description:
       "A good tumble, but partway through someone walks up with a phone in hand and holds it near the vehicle for a moment. Watch the compass readings.",
     answer:
-      "A passing disturbance: for about a second and a half the phone was close enough to the compass to push its readings far off the sphere. The fit leaves that stretch out and says so in its explanation, giving when it began and how long it lasted, so the calibration is still sound. Read the fit's explanation to find the stretch. Keep phones, tools and magnets away from the vehicle while it is turned, and redo the capture if the stretch left out is long or comes back.",
+      "A passing disturbance: for about a second and a half the phone was close enough to the compass to push its readings far off the sphere. The fit leaves that stretch out, so the offset and soft iron are as sound as without it, and the check on stretches left out warns, saying when the stretch began and how long it lasted. Its cause could as well have been a loose compass connector, which would not stay on the ground: find what was near the compass at that moment, keep phones, tools and magnets away while the vehicle is turned, and repeat the capture.",
     spec: { ...BASE, glitchBurst: { kind: "magnet", startS: 52, durationS: 1.5, fieldMultiple: 4 } },
-    lesson: { verdict: "pass", checks: [] },
+    lesson: { verdict: "warn", checks: ["mag.left-out"] },
   },
   {
     name: "Turned steadily on the ground",

@@ -164,12 +164,19 @@ describe("analyseCapture with a glitch burst", () => {
       const cleanOffset = clean.analysis.magnetometers[0].offset!;
       // As above: the clean fit of the same samples, to within what leaving out 2 % of them allows.
       compass.offset!.forEach((v, i) => expect(Math.abs(v - cleanOffset[i])).toBeLessThan(0.01));
-      const fit = analysis.checks.find((c) => c.id === "mag.fit" && c.sensor === "compass_a")!;
+      // The stretch is named in its own check, which warns (the verdict is then warn, not worse).
+      const leftOut = analysis.checks.find((c) => c.id === "mag.left-out" && c.sensor === "compass_a")!;
       const start = table.columns.time[made.startIndex].toFixed(1);
-      expect(fit.explanation).toMatch(
+      expect(leftOut.status).toBe("warn");
+      expect(leftOut.explanation).toMatch(
         new RegExp(`\\d\\.\\d s of readings at \\d+\\.\\d× the field from ${start.replace(".", "\\.")} s were left out\\.`),
       );
-      expect(fit.explanation).toMatch(/connector/);
+      expect(leftOut.explanation).toMatch(/connector/);
+      expect(leftOut.remedy).toMatch(/connector/);
+      expect(analysis.verdict).toBe("warn");
+      expect(analysis.diagnosis.map((d) => d.id)).toContain("passing-disturbance");
+      // The clean capture has nothing left out.
+      expect(clean.analysis.checks.find((c) => c.id === "mag.left-out" && c.sensor === "compass_a")?.status).toBe("pass");
     },
   );
 });

@@ -39,14 +39,14 @@ describe("DEMO_SCENARIOS", () => {
     expect(endOf(sound.spec).verdict).toBe("pass");
   });
 
-  test("a scenario with a glitch burst: the fit's explanation names the stretch it left out", () => {
+  test("a scenario with a glitch burst: the stretch left out is named in its own check", () => {
     const withBurst = DEMO_SCENARIOS.filter((s) => s.spec.glitchBurst);
     expect(withBurst.length).toBeGreaterThan(0);
     for (const scenario of withBurst) {
       const burst = scenario.spec.glitchBurst!;
-      const fit = endOf(scenario.spec).checks.find((c) => c.id === "mag.fit" && c.sensor === "compass_a");
-      expect(fit?.explanation).toContain(`${burst.durationS.toFixed(1)} s of readings`);
-      expect(fit?.explanation).toContain(`from ${burst.startS.toFixed(1)} s`);
+      const leftOut = endOf(scenario.spec).checks.find((c) => c.id === "mag.left-out" && c.sensor === "compass_a");
+      expect(leftOut?.explanation).toContain(`${burst.durationS.toFixed(1)} s of readings`);
+      expect(leftOut?.explanation).toContain(`from ${burst.startS.toFixed(1)} s`);
     }
   });
 

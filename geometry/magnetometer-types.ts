@@ -311,6 +311,8 @@ export interface CaptureSpec {
   pathSeconds?: number;
   /** Default "full". */
   path?: RotationPath;
+  /** Rate of the steady-spin path, °/s (positive turns clockwise seen from above). Default STEADY_SPIN_RATE_DEG_PER_S. */
+  spinRateDegPerS?: number;
   /** Site field in the NED frame, µT. Default an invented mid-latitude value. */
   siteFieldNed?: Vec3;
   /** Gravity magnitude, m/s². Default 9.80665 (standard gravity, CGPM 1901). */

@@ -156,7 +156,7 @@ function buildSegments(spec: CaptureSpec, field: Vec3, random: RandomSource): Mo
   if (spec.holds) for (const face of spec.holds.faces) segments.push(holdSegment(face, spec.holds, random));
   const path = spec.path ?? "full";
   const pathSeconds = spec.pathSeconds ?? 60;
-  if (pathSeconds > 0) segments.push(pathSegment(path, pathSeconds, field, random));
+  if (pathSeconds > 0) segments.push(pathSegment(path, pathSeconds, field, random, spec.spinRateDegPerS));
   if (spec.currentTest) segments.push(motorRunSegment(spec.currentTest.seconds ?? 20, random));
   return joinSegments(segments, spec.holds?.moveSeconds ?? 3, random);
 }

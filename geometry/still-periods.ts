@@ -19,14 +19,15 @@
  * reads the turn all along looks just like a gyro with a bias. So the bias removed before the
  * rate tests is the median rate over the accelerometer-still samples whose rate about the
  * vertical, averaged over the window, is small enough to be a MEMS bias (a rate about a
- * horizontal axis would tip gravity, so the accelerometer vouches for those axes). If none
- * is, the compass decides:
+ * horizontal axis would tip gravity, so the accelerometer vouches for those axes), less those
+ * where the compass heading turns (a turn slower than a plausible bias), unless that leaves
+ * none. If none is, the compass decides:
  * when its heading turns during those samples, they are a turn and no bias is removed;
  * otherwise (or with no compass) the median over all of them is used, and without a compass
  * gyro-bias.ts declines to call the result a bias. With the bias known, the gyro judges turns
  * and the compass is not used again: its reading also moves with motor current, which does
- * not make a still vehicle move. A turn slower than a plausible bias that fills most of the
- * still samples can still pass for bias.
+ * not make a still vehicle move. With no compass, a turn slower than a plausible bias that
+ * fills most of the still samples can still pass for bias.
  *
  * Default thresholds (common practice for hand-held calibration with MEMS sensors):
  * - window 0.5 s: long enough to average sensor noise, short enough to resolve the moves
@@ -236,6 +237,27 @@ function headingTurns(timeS: Float64Array, accel: Vec3Series, mask: Uint8Array, 
   return turning.includes(1);
 }
 
+/** `candidates` less the samples where the compass heading turns (headingTurns' test); `candidates` itself when that would leave none. */
+function withoutHeadingTurns(
+  timeS: Float64Array,
+  accel: Vec3Series,
+  candidates: Uint8Array,
+  limits: RunLimits,
+  compass: Vec3Series,
+): Uint8Array {
+  const turning = new Uint8Array(candidates.length);
+  splitRuns(timeS, accel, candidates, limits, compass, undefined, turning);
+  const kept = new Uint8Array(candidates.length);
+  let count = 0;
+  for (let i = 0; i < candidates.length; i++) {
+    if (candidates[i] === 1 && turning[i] === 0) {
+      kept[i] = 1;
+      count++;
+    }
+  }
+  return count > 0 ? kept : candidates;
+}
+
 /** Median of each axis over the marked samples (at most ~10,000 of them, evenly spread). */
 function maskedMedian(series: Vec3Series, mask: Uint8Array): [number, number, number] {
   let marked = 0;
@@ -283,7 +305,11 @@ export function findStillPeriods(timeS: Float64Array, accel: Vec3Series, options
 
   // The bias, from samples that every other test calls still (see the header).
   let bias: [number, number, number];
-  const plausible = plausibleBiasSamples(gyro, accel, mask, halfWindow, MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S);
+  let plausible = plausibleBiasSamples(gyro, accel, mask, halfWindow, MAX_PLAUSIBLE_GYRO_BIAS_RAD_PER_S);
+  // A turn slower than a plausible bias still turns the compass heading: such samples are not
+  // the bias either, as long as others are left (motor current can move the heading too, so it
+  // only ever narrows the choice, never empties it).
+  if (plausible && compass) plausible = withoutHeadingTurns(timeS, accel, plausible, run, compass);
   if (plausible) bias = maskedMedian(gyro, plausible);
   else if (compass && headingTurns(timeS, accel, mask, run, compass)) bias = [0, 0, 0];
   else bias = maskedMedian(gyro, mask);

@@ -103,6 +103,23 @@ describe("a steady spin on level ground is not gyroscope bias", () => {
     for (let k = 0; k < 3; k++) expect(Math.abs(gyro.biasRadPerS![k] / DEG - TRUE_BIAS_DEG[k])).toBeLessThan(TOLERANCE_DEG);
   });
 
+  // A turn slower than any plausible bias (3 °/s) and longer than the holds: the gyroscope
+  // alone cannot tell it from a bias, but the compass heading turns with it.
+  test.each([1, 2, 3])("with a compass, a slow spin longer than the holds is not taken for bias (seed %i)", (seed) => {
+    const { gyro, analysis, truth } = spin({
+      seed,
+      holds: { faces: ["+z", "-z"], holdSeconds: 6 },
+      path: "steady-spin",
+      spinRateDegPerS: 3,
+      pathSeconds: 60,
+      gyro: { bias: TRUE_BIAS_DEG.map((b) => b * DEG) as Vec3 },
+    });
+    const spinStartS = truth.holds[truth.holds.length - 1].endS + 3;
+    for (const period of analysis.stillPeriods) expect(period.endTimeS).toBeLessThan(spinStartS);
+    expect(gyro.ok).toBe(true);
+    for (let k = 0; k < 3; k++) expect(Math.abs(gyro.biasRadPerS![k] / DEG - TRUE_BIAS_DEG[k])).toBeLessThan(TOLERANCE_DEG);
+  });
+
   test("with no compass, holds before a spin give the true bias: the spin is left out", () => {
     const { gyro } = spin({
       seed: 4,

@@ -17,8 +17,6 @@ export const SENSOR_KIND_LABELS: Record<SensorKind, string> = {
   accelerometer: "Accelerometer",
   gyroscope: "Gyroscope",
 };
-/** Slot prefix of each sensor kind in a capture's canonical fields ("compass_a.x", "accel_b.z", …). */
-export const SENSOR_SLOT_PREFIX: Record<SensorKind, string> = { magnetometer: "mag", accelerometer: "accel", gyroscope: "gyro" };
 
 export const PLACEMENTS = ["internal", "external"] as const;
 export type Placement = (typeof PLACEMENTS)[number];

@@ -1,6 +1,6 @@
 import "server-only";
 import { Readable } from "node:stream";
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { storage as settings } from "@/lib/env";
 
@@ -99,8 +99,4 @@ export async function readObject(key: string): Promise<Buffer> {
 
 export async function putObject(key: string, body: Buffer | Uint8Array | string, contentType = "application/octet-stream"): Promise<void> {
   await s3().send(new PutObjectCommand({ Bucket: settings.bucket, Key: key, Body: body, ContentType: contentType }));
-}
-
-export async function deleteObject(key: string): Promise<void> {
-  await s3().send(new DeleteObjectCommand({ Bucket: settings.bucket, Key: key }));
 }

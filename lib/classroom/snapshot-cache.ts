@@ -73,12 +73,6 @@ export function snapshotCacheCounts(): { tablesBuilt: number; snapshotsBuilt: nu
   return { ...caches().counts };
 }
 
-export function clearSnapshotCaches(): void {
-  const c = caches();
-  c.tables.clear();
-  c.snapshots.clear();
-}
-
 /** The simulated capture of a scenario (deterministic: the same spec gives the same numbers). */
 export function scenarioTable(spec: ScenarioSpec, specKey = canonicalJson(spec)): ColumnTable {
   const c = caches();

@@ -35,11 +35,6 @@ export async function listSites(workspaceId: string): Promise<SiteSummary[]> {
   return (await db().models.Site.findAll({ where: { workspaceId }, order: [["name", "ASC"]] })).map(toSummary);
 }
 
-export async function getSite(workspaceId: string, id: string): Promise<SiteSummary | null> {
-  const site = await db().models.Site.findOne({ where: { workspaceId, id } });
-  return site ? toSummary(site) : null;
-}
-
 export async function createSite(workspaceId: string, actorId: string, input: SiteInput): Promise<SiteSummary> {
   try {
     const site = await db().models.Site.create({ ...input, workspaceId, createdById: actorId });

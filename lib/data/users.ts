@@ -78,7 +78,3 @@ export async function authenticate(email: string, password: string, ipAddress: s
   await recordAudit({ actorId: user.id, action: "session.signed-in", ipAddress });
   return { ok: true, user: toSummary(user) };
 }
-
-export async function setPassword(userId: string, password: string): Promise<void> {
-  await db().models.User.update({ passwordHash: await hashPassword(password) }, { where: { id: userId } });
-}

@@ -87,20 +87,3 @@ export async function updateWorkspace(
     return toSummary(workspace);
   });
 }
-
-/** Suggest a free slug from a name ("North Ridge Survey" → "north-ridge-survey", then "-2", …). */
-export async function suggestSlug(name: string): Promise<string> {
-  const base =
-    name
-      .toLowerCase()
-      .normalize("NFKD")
-      .replace(/[^a-z0-9]+/g, "-")
-      .replace(/^-+|-+$/g, "")
-      .slice(0, 40) || "workspace";
-  const padded = base.length < 3 ? `${base}-ws` : base;
-  for (let n = 1; n < 100; n++) {
-    const candidate = n === 1 ? padded : `${padded}-${n}`;
-    if (!(await db().models.Workspace.findOne({ where: { slug: candidate } }))) return candidate;
-  }
-  return `${padded}-${Date.now().toString(36)}`;
-}

@@ -7,6 +7,7 @@ import { contextFor, getViewer, type WorkspaceContext } from "@/lib/guard";
 import type { Action } from "@/lib/permissions";
 import type { UserSummary } from "@/lib/data/users";
 import { InvalidFieldError, UserFacingError } from "@/lib/errors";
+import { isRecordId } from "@/lib/ids";
 
 export function jsonError(status: number, error: string, message: string, extra?: Record<string, unknown>) {
   return NextResponse.json({ error, message, ...extra }, { status });
@@ -42,8 +43,6 @@ export function readQuery<S extends z.ZodType>(
   for (const issue of result.error.issues) fields[issue.path.join(".") || "query"] ??= issue.message;
   return { ok: false, response: jsonError(400, "invalid", "Some query parameters need attention.", { fields }) };
 }
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export const notFound = () => jsonError(404, "not-found", "Not found.");
 export const forbidden = () => jsonError(403, "forbidden", "Your role in this workspace does not allow this.");
@@ -100,7 +99,7 @@ export function workspaceRoute<P extends { slug: string }>(
       if (!viewer) return jsonError(401, "unauthenticated", "Sign in first, or send a valid API token.");
       const resolved = await params;
       // Ids in the path are UUIDs; anything else cannot name a row, so it is simply not found.
-      for (const [key, value] of Object.entries(resolved)) if (key.endsWith("Id") && !UUID.test(String(value))) return notFound();
+      for (const [key, value] of Object.entries(resolved)) if (key.endsWith("Id") && !isRecordId(String(value))) return notFound();
       const access = await getWorkspaceAccess(viewer.id, resolved.slug);
       if (!access) return jsonError(404, "not-found", "Not found.");
       const context = contextFor(viewer, access);

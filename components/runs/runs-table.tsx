@@ -15,6 +15,7 @@ import type { RunSummary } from "@/lib/data/runs";
 import type { SensorSummary } from "@/lib/data/sensors";
 import type { VehicleSummary } from "@/lib/data/vehicles";
 import { SENSOR_KIND_LABELS, VERDICTS } from "@/lib/fleet-terms";
+import { isRecordId } from "@/lib/ids";
 
 const PAGE_SIZE = 25;
 const POLL_MS = 2_000;
@@ -32,7 +33,6 @@ const DEFAULTS = {
   order: "desc",
   page: "1",
 };
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 
 interface RunPage {
@@ -68,15 +68,15 @@ export function RunsTable({
 }) {
   const [state, update] = useSearchState(DEFAULTS);
   const [searchKey, setSearchKey] = useState(0);
-  const vehicle = vehicleId ?? onlyIf(canViewVehicles && UUID.test(state.vehicle), state.vehicle);
+  const vehicle = vehicleId ?? onlyIf(canViewVehicles && isRecordId(state.vehicle), state.vehicle);
   const sort = (RUN_SORT_KEYS as readonly string[]).includes(state.sort) ? state.sort : "capturedOn";
   const order = state.order === "asc" ? "asc" : "desc";
   const page = pageFrom(state.page);
   const request = {
     vehicleId: vehicle,
-    sensorId: onlyIf(Boolean(vehicle) && UUID.test(state.sensor), state.sensor),
+    sensorId: onlyIf(Boolean(vehicle) && isRecordId(state.sensor), state.sensor),
     verdict: onlyIf((VERDICTS as readonly string[]).includes(state.verdict), state.verdict),
-    uploaderId: onlyIf(canListMembers && UUID.test(state.uploader), state.uploader),
+    uploaderId: onlyIf(canListMembers && isRecordId(state.uploader), state.uploader),
     from: onlyIf(DATE.test(state.from), state.from),
     to: onlyIf(DATE.test(state.to), state.to),
     search: state.q || undefined,

@@ -11,6 +11,7 @@ import { UserFacingError } from "@/lib/errors";
 import { getViewer } from "@/lib/guard";
 import { can } from "@/lib/permissions";
 import type { Role } from "@/lib/roles";
+import { isRecordId } from "@/lib/ids";
 
 /**
  * Who may do what with one class session, decided from the session's workspace:
@@ -35,7 +36,6 @@ export interface SessionAccess {
 
 export type SessionNeed = "view" | "host" | "participant";
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const unauthenticated = () => jsonError(401, "unauthenticated", "Sign in first, or join the session with its code.");
 const forbidden = (message: string) => jsonError(403, "forbidden", message);
 
@@ -66,7 +66,7 @@ export async function sessionAccess(request: Request, sessionId: string, need: S
   const [user, seats] = await Promise.all([callerOf(request), readParticipantSeats(request)]);
   const seat = seats[sessionId];
   if (!user && !seat) return unauthenticated();
-  if (!UUID.test(sessionId)) return notFound();
+  if (!isRecordId(sessionId)) return notFound();
   const { models } = db();
   const session = await models.ClassSession.findByPk(sessionId, { attributes: ["id", "workspaceId", "status", "expiresAt"] });
   if (!session) return notFound();
@@ -132,7 +132,7 @@ export function sessionRoute<P extends { sessionId: string }>(
       const access = await sessionAccess(request, resolved.sessionId, need);
       if (access instanceof Response) return access;
       // Other ids in the path are UUIDs too; anything else cannot name a row.
-      for (const [key, value] of Object.entries(resolved)) if (key.endsWith("Id") && !UUID.test(String(value))) return notFound();
+      for (const [key, value] of Object.entries(resolved)) if (key.endsWith("Id") && !isRecordId(String(value))) return notFound();
       return handler(request, access, resolved);
     });
 }

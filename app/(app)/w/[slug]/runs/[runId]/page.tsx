@@ -19,10 +19,9 @@ import { getRunPageData } from "@/lib/data/run-page";
 import { listSites } from "@/lib/data/sites";
 import { requireWorkspacePage } from "@/lib/guard";
 import { MODEL_CHOICE_LABELS } from "@/lib/fleet-terms";
+import { isRecordId } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Calibration run" };
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export default async function RunPage({
   params,
@@ -33,8 +32,8 @@ export default async function RunPage({
 }) {
   const [{ slug, runId }, { version: versionParam }] = await Promise.all([params, searchParams]);
   const { access, can } = await requireWorkspacePage(slug, "run.view");
-  if (!UUID.test(runId)) notFound();
-  const data = await getRunPageData(access.workspace.id, runId, versionParam && UUID.test(versionParam) ? versionParam : undefined);
+  if (!isRecordId(runId)) notFound();
+  const data = await getRunPageData(access.workspace.id, runId, versionParam && isRecordId(versionParam) ? versionParam : undefined);
   // A run not shared with students does not exist for them.
   if (!data || !can("run.view", { createdById: data.run.uploadedById, sharedWithStudents: data.run.sharedWithStudents })) notFound();
   const { run, version, analysis, view, previous } = data;

@@ -3,10 +3,9 @@ import { RunUploader } from "@/components/upload/run-uploader";
 import { listSites } from "@/lib/data/sites";
 import { getVehicle, listVehicles } from "@/lib/data/vehicles";
 import { requireWorkspacePage } from "@/lib/guard";
+import { isRecordId } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Upload a capture" };
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export default async function NewRunPage({
   params,
@@ -22,9 +21,9 @@ export default async function NewRunPage({
     listVehicles(access.workspace.id, { sort: "name", order: "asc", pageSize: 100 }),
     listSites(access.workspace.id),
   ]);
-  const resumeRunId = typeof run === "string" && UUID.test(run) ? run : null;
+  const resumeRunId = typeof run === "string" && isRecordId(run) ? run : null;
   // Coming from a vehicle's page (?vehicle=): that vehicle is chosen, even beyond the first hundred.
-  const chosen = typeof vehicle === "string" && UUID.test(vehicle) ? vehicle : null;
+  const chosen = typeof vehicle === "string" && isRecordId(vehicle) ? vehicle : null;
   const choices = vehicles.items.map((v) => ({ id: v.id, name: v.name, kind: v.kind }));
   if (chosen && !choices.some((v) => v.id === chosen)) {
     const extra = await getVehicle(access.workspace.id, chosen);

@@ -8,16 +8,15 @@ import { RunsTable } from "@/components/runs/runs-table";
 import { listSensors } from "@/lib/data/sensors";
 import { getVehicle } from "@/lib/data/vehicles";
 import { requireWorkspacePage } from "@/lib/guard";
+import { isRecordId } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Vehicle" };
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export default async function VehiclePage({ params }: { params: Promise<{ slug: string; vehicleId: string }> }) {
   const { slug, vehicleId } = await params;
   const { access, can } = await requireWorkspacePage(slug, "vehicle.view");
   // A malformed id is as unknown as another workspace's vehicle.
-  if (!UUID.test(vehicleId)) notFound();
+  if (!isRecordId(vehicleId)) notFound();
   const vehicle = await getVehicle(access.workspace.id, vehicleId);
   if (!vehicle) notFound();
   const sensors = await listSensors(access.workspace.id, vehicle.id);

@@ -3,10 +3,9 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ScenarioEditor } from "@/components/classroom/scenario-editor";
 import { requireWorkspacePage } from "@/lib/guard";
+import { isRecordId } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Scenario" };
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export default async function ScenarioPage({
   params,
@@ -17,7 +16,7 @@ export default async function ScenarioPage({
 }) {
   const [{ slug, scenarioId }, { saved, copied }] = await Promise.all([params, searchParams]);
   await requireWorkspacePage(slug, "scenario.manage");
-  if (!UUID.test(scenarioId)) notFound();
+  if (!isRecordId(scenarioId)) notFound();
   return (
     <div className="space-y-6">
       <p className="text-sm text-chart-muted">

@@ -1,6 +1,6 @@
 "use client";
 
-import { Canvas } from "@react-three/fiber";
+import { Canvas, useThree } from "@react-three/fiber";
 import { Component, useEffect, useRef, type ReactNode } from "react";
 import { FOV_DEG } from "./orbit-rig";
 import { SphereScene, type SphereSceneProps } from "./sphere-scene";
@@ -17,6 +17,25 @@ class CanvasGuard extends Component<{ fallback: ReactNode; onFail: () => void; c
   render() {
     return this.state.failed ? this.props.fallback : this.props.children;
   }
+}
+
+/**
+ * Draws again whenever the canvas's size or pixel ratio settles: a canvas that draws only on
+ * demand would otherwise keep the frame it drew before layout (empty, at the wrong size) until
+ * the first pointer move.
+ */
+function RedrawOnResize() {
+  const invalidate = useThree((state) => state.invalidate);
+  const width = useThree((state) => state.size.width);
+  const height = useThree((state) => state.size.height);
+  const dpr = useThree((state) => state.viewport.dpr);
+  useEffect(() => {
+    invalidate();
+    // And once more on the next frame, after the browser has laid the canvas out.
+    const frame = requestAnimationFrame(() => invalidate());
+    return () => cancelAnimationFrame(frame);
+  }, [invalidate, width, height, dpr]);
+  return null;
 }
 
 export interface SphereCanvasProps extends SphereSceneProps {
@@ -63,6 +82,7 @@ export function SphereCanvas({ testId, label, hintId, onFail, ...scene }: Sphere
         // The focus ring goes inside the canvas: the wrapper clips anything drawn outside it.
         className="rounded-lg [&_canvas:focus-visible]:ring-inset [&_canvas:focus-visible]:ring-offset-0"
       >
+        <RedrawOnResize />
         <SphereScene {...scene} />
       </Canvas>
     </CanvasGuard>

@@ -6,8 +6,8 @@
  * (`{ subsample: false }`, 200 bootstrap resamples refitted through indices)? Run alone with `npx tsx bench/interval-bench.ts`, or call
  * `benchIntervalWidths()`.
  *
- * Captures: compass A of the demo fleet's simulated captures (the specs lib/seed/demo-fleet.ts
- * gives the simulator, here with the simulator's default site field), and one long capture:
+ * Captures: compass A of the demo fleet's simulated captures (the specs of lib/seed/demo-runs.ts,
+ * which the seed also reads, here with the simulator's default site field), and one long capture:
  * a 100 Hz simulated tumble repeated to 1,000,000 samples with fresh noise on every copy
  * (invented data). For each, outlier rejection and the model choice run once (as
  * calibrateMagnetometer does them), then both methods fit the chosen model to the kept
@@ -18,42 +18,18 @@ import { ASYMPTOTIC_INTERVAL_MIN_SAMPLES, asymptoticIntervals } from "@/geometry
 import { bootstrapIntervals } from "@/geometry/bootstrap";
 import { ellipsoidScales } from "@/geometry/ellipsoid-fit";
 import { chooseMagModel, fitMagModel } from "@/geometry/magnetometer-models";
-import type { BodyFace, CaptureSpec } from "@/geometry/magnetometer-types";
+import type { CaptureSpec } from "@/geometry/magnetometer-types";
 import { fitWithOutlierRejection } from "@/geometry/outlier-rejection";
 import { createRandom } from "@/geometry/random";
 import { simulateCapture } from "@/geometry/simulator";
 import type { Vec3Series } from "@/geometry/types";
+import { DEMO_RUNS } from "@/lib/seed/demo-runs";
 
-const SIX: BodyFace[] = ["+z", "-z", "+x", "-x", "+y", "-y"];
-
-/** Compass A of each demo run, as the seed simulates it (lib/seed/demo-fleet.ts). */
-const DEMO_SPECS: { label: string; spec: CaptureSpec }[] = [
-  {
-    label: "demo 101, six faces",
-    spec: { seed: 101, holds: { faces: SIX }, magnetometers: [{ hardIronOffset: [14, -6, 22], softIron: "mild" }] },
-  },
-  {
-    label: "demo 102, upper half",
-    spec: { seed: 102, path: "upper-half", magnetometers: [{ hardIronOffset: [8, 11, -15], softIron: "mild" }] },
-  },
-  { label: "demo 103", spec: { seed: 103, magnetometers: [{ hardIronOffset: [5, -9, 12] }] } },
-  {
-    label: "demo 104, steel",
-    spec: { seed: 104, steel: { distanceM: 0.7, strength: 6 }, magnetometers: [{ hardIronOffset: [-20, 4, 9] }] },
-  },
-  {
-    label: "demo 105, motor run",
-    spec: {
-      seed: 105,
-      holds: { faces: ["+z"] },
-      pathSeconds: 50,
-      magnetometers: [{ hardIronOffset: [14, -6, 22], currentCoupling: [0.32, 0.12, -0.26] }],
-      currentTest: { maxAmps: 38 },
-    },
-  },
-  { label: "demo 106, shaky holds", spec: { seed: 106, holds: { faces: SIX, wobbleDeg: 0.8, holdSeconds: 5 }, pathSeconds: 40 } },
-  { label: "demo 107", spec: { seed: 107, holds: { faces: SIX }, magnetometers: [{ hardIronOffset: [2, -4, 6], softIron: "mild" }] } },
-];
+/** Compass A of each demo run, from the seed's own list (lib/seed/demo-runs.ts). */
+const DEMO_SPECS: { label: string; spec: CaptureSpec }[] = DEMO_RUNS.map((run, i) => ({
+  label: `demo ${i + 1}, ${run.vehicle}`,
+  spec: run.spec,
+}));
 
 function compassA(spec: CaptureSpec): Vec3Series {
   const { columns } = simulateCapture(spec).table;

@@ -182,6 +182,17 @@ function dampedStep(model: MagModel, lambda: number): Float64Array | null {
   return step.every(Number.isFinite) ? step : null;
 }
 
+/** True when no entry of `step` is above round-off of the parameters (which are O(1) here). */
+function isRoundOff(p: Float64Array, step: Float64Array): boolean {
+  let largest = 1;
+  let stepSize = 0;
+  for (let i = 0; i < p.length; i++) {
+    largest = Math.max(largest, Math.abs(p[i]));
+    stepSize = Math.max(stepSize, Math.abs(step[i]));
+  }
+  return stepSize < 1e-10 * largest;
+}
+
 interface IterationResult {
   p: Float64Array;
   cost: number;
@@ -217,19 +228,13 @@ function iterate(
     }
     const step = dampedStep(model, lambda);
     if (!step) break;
-    let largest = 1;
-    let stepSize = 0;
-    for (let i = 0; i < p.length; i++) {
-      largest = Math.max(largest, Math.abs(p[i]));
-      stepSize = Math.max(stepSize, Math.abs(step[i]));
-    }
     // Converged when the step is a hundredth of the estimate's own standard error: its
     // length in the metric of JᵀJ, over the residual variance (Mahalanobis distance). A
     // relative-gain test alone would stop too early on long captures, where a tiny gain is
     // still many standard errors. Parameters are O(1) here, so 1e-10 is round-off.
     const variance = current.cost / Math.max(1, current.count - p.length);
     // (Only for near Gauss–Newton steps: heavy damping shrinks a step without it being done.)
-    if (stepSize < 1e-10 * largest || (lambda <= 1e-2 && curvatureNorm(model, step) < STEP_TOLERANCE_SQUARED * variance)) {
+    if (isRoundOff(p, step) || (lambda <= 1e-2 && curvatureNorm(model, step) < STEP_TOLERANCE_SQUARED * variance)) {
       converged = true;
       break;
     }
@@ -299,24 +304,14 @@ function polish(
     iterations++;
     const step = dampedStep(model, 0);
     if (!step) break;
-    let largest = 1;
-    let stepSize = 0;
-    for (let i = 0; i < p.length; i++) {
-      largest = Math.max(largest, Math.abs(p[i]));
-      stepSize = Math.max(stepSize, Math.abs(step[i]));
-    }
     const variance = current.cost / Math.max(1, current.count - p.length);
     const predictedGain = curvatureNorm(model, step);
     const trial = p.map((v, i) => v + step[i]);
-    if (stepSize < 1e-10 * largest || predictedGain < POLISH_TOLERANCE_SQUARED * variance) {
-      // The last step is taken without another pass: it is a tenth of a standard error at
-      // most, and the cost it leaves is the one just summed less the Gauss–Newton gain
-      // δᵀJᵀJδ (below a hundredth of one sample's squared residual).
-      return { p: trial, cost: Math.max(0, current.cost - predictedGain), count: current.count, iterations, converged: true };
-    }
-    // Asked for one step only: take it, its cost predicted as above (the step is larger, so
-    // the prediction is good to the quadratic model's accuracy, not to round-off).
-    if (maxSteps === 1) {
+    // The last step is taken without another pass: it is half a standard error at most, and
+    // the cost it leaves is the one just summed less the Gauss–Newton gain δᵀJᵀJδ. Asked for
+    // one step only, it is taken the same way (a larger step, so the predicted cost is good to
+    // the quadratic model's accuracy rather than to round-off).
+    if (isRoundOff(p, step) || predictedGain < POLISH_TOLERANCE_SQUARED * variance || maxSteps === 1) {
       return { p: trial, cost: Math.max(0, current.cost - predictedGain), count: current.count, iterations, converged: true };
     }
     loadShape(model, trial);
